@@ -1,0 +1,131 @@
+// Dispatch of headless subcommands; every error becomes one line on stderr and exit code 2.
+#include "app/cli/cli.h"
+
+#include "app/cli/cli_support.h"
+#include "app/cli/command_table.h"
+#include "core/units/quantity.h"
+
+#include <QCoreApplication>
+#include <QTextStream>
+
+#include <cstring>
+#include <exception>
+
+namespace mw::cli {
+namespace {
+
+constexpr int kUsageError = 2;
+
+std::vector<Command> calcCommands() {
+    std::vector<Command> all = dcCalcCommands();
+    for (auto&& family : {rectifierCalcCommands(), evaluationCalcCommands()}) {
+        all.insert(all.end(), family.begin(), family.end());
+    }
+    return all;
+}
+
+QString listing(const std::vector<Command>& commands, const QString& prefix) {
+    QString text;
+    for (const Command& command : commands) {
+        text += QStringLiteral("  %1%2  %3\n")
+                    .arg(prefix, command.name.leftJustified(12, QLatin1Char(' ')), command.summary);
+    }
+    return text;
+}
+
+QString generalHelp() {
+    return QStringLiteral(
+               "Usage: meterwright [WORKBOOK]           open the workbook in the main window\n"
+               "       meterwright COMMAND [OPTIONS]    run a command without a window\n"
+               "\n"
+               "Calibration workbook for analog moving-coil instruments.\n"
+               "\n"
+               "Commands:\n") +
+           listing(workbookCommands(), QString()) +
+           QStringLiteral("  calc          engine calculations (meterwright calc --help)\n"
+                          "\n"
+                          "Options:\n"
+                          "  --help        show this text\n"
+                          "  --version     show the version\n"
+                          "\n"
+                          "Exit codes: 0 ok, 1 a check failed, 2 usage or input error.\n");
+}
+
+void printError(const QString& where, const QString& message) {
+    QTextStream err(stderr);
+    err << "meterwright " << where << ": " << message << '\n';
+}
+
+int runFrom(const std::vector<Command>& commands, const QString& family,
+            const QStringList& arguments) {
+    if (arguments.isEmpty() || arguments.first() == QStringLiteral("--help") ||
+        arguments.first() == QStringLiteral("-h")) {
+        printLine(QStringLiteral("Usage: meterwright %1 COMMAND [OPTIONS]\n\nCommands:\n%2")
+                      .arg(family, listing(commands, QString())));
+        return arguments.isEmpty() ? kUsageError : 0;
+    }
+    const QString name = arguments.first();
+    for (const Command& command : commands) {
+        if (command.name != name) {
+            continue;
+        }
+        const QString where = family.isEmpty() ? name : family + QLatin1Char(' ') + name;
+        try {
+            return command.run(arguments.mid(1));
+        } catch (const UsageError& error) {
+            printError(where, QString::fromStdString(error.what()));
+        } catch (const QuantityError& error) {
+            printError(where, QString::fromStdString(error.what()));
+        } catch (const std::exception& error) {
+            printError(where, QString::fromStdString(error.what()));
+        }
+        return kUsageError;
+    }
+    printError(family.isEmpty() ? QStringLiteral("command") : family,
+               QStringLiteral("unknown command \"%1\"; see meterwright %2 --help")
+                   .arg(name, family)
+                   .trimmed());
+    return kUsageError;
+}
+
+} // namespace
+
+bool wantsHeadless(int argc, char* argv[]) {
+    if (argc < 2) {
+        return false;
+    }
+    const char* first = argv[1];
+    if (std::strcmp(first, "--help") == 0 || std::strcmp(first, "-h") == 0 ||
+        std::strcmp(first, "--version") == 0 || std::strcmp(first, "-v") == 0 ||
+        std::strcmp(first, "calc") == 0) {
+        return true;
+    }
+    for (const Command& command : workbookCommands()) {
+        if (command.name == QLatin1String(first)) {
+            return true;
+        }
+    }
+    return false;
+}
+
+int runHeadless(int argc, char* argv[]) {
+    QCoreApplication app(argc, argv);
+    QCoreApplication::setApplicationName(QStringLiteral("meterwright"));
+    QCoreApplication::setApplicationVersion(QStringLiteral(MW_VERSION));
+    QStringList arguments = QCoreApplication::arguments().mid(1);
+    const QString first = arguments.first();
+    if (first == QStringLiteral("--version") || first == QStringLiteral("-v")) {
+        printLine(QStringLiteral("meterwright %1").arg(QStringLiteral(MW_VERSION)));
+        return 0;
+    }
+    if (first == QStringLiteral("--help") || first == QStringLiteral("-h")) {
+        printLine(generalHelp().trimmed());
+        return 0;
+    }
+    if (first == QStringLiteral("calc")) {
+        return runFrom(calcCommands(), QStringLiteral("calc"), arguments.mid(1));
+    }
+    return runFrom(workbookCommands(), QString(), arguments);
+}
+
+} // namespace mw::cli

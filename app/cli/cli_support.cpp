@@ -1,0 +1,99 @@
+// Shared plumbing for headless commands.
+#include "app/cli/cli_support.h"
+
+#include <QJsonDocument>
+#include <QTextStream>
+
+#include <cmath>
+#include <cstdio>
+
+namespace mw::cli {
+
+UsageError::UsageError(const QString& message)
+    : std::runtime_error(message.toStdString()) {}
+
+void parseOptions(QCommandLineParser& parser, const QString& commandLine,
+                  const QStringList& arguments) {
+    parser.setSingleDashWordOptionMode(QCommandLineParser::ParseAsLongOptions);
+    parser.addOption({QStringLiteral("json"), QStringLiteral("Print the result as JSON.")});
+    parser.addOption({{QStringLiteral("h"), QStringLiteral("help")},
+                      QStringLiteral("Show the options of this command.")});
+    QStringList withProgram = arguments;
+    withProgram.prepend(commandLine);
+    if (!parser.parse(withProgram)) {
+        throw UsageError(parser.errorText());
+    }
+}
+
+bool helpRequested(const QCommandLineParser& parser, const QString& commandLine) {
+    if (!parser.isSet(QStringLiteral("help"))) {
+        return false;
+    }
+    QString text = parser.helpText();
+    text.replace(QStringLiteral("Usage: ") + commandLine,
+                 QStringLiteral("Usage: meterwright ") + commandLine);
+    printLine(text.trimmed());
+    return true;
+}
+
+std::optional<double> optionalQuantity(const QCommandLineParser& parser, const QString& option,
+                                       Unit unit) {
+    if (!parser.isSet(option)) {
+        return std::nullopt;
+    }
+    const QString text = parser.value(option);
+    try {
+        return parseValue(text.toStdString(), unit);
+    } catch (const QuantityError& error) {
+        throw UsageError(QStringLiteral("option --%1 \"%2\": %3")
+                             .arg(option, text, QString::fromStdString(error.what())));
+    }
+}
+
+double requireQuantity(const QCommandLineParser& parser, const QString& option, Unit unit) {
+    const auto value = optionalQuantity(parser, option, unit);
+    if (!value) {
+        throw UsageError(QStringLiteral("option --%1 is required").arg(option));
+    }
+    return *value;
+}
+
+QString requireText(const QCommandLineParser& parser, const QString& option) {
+    if (!parser.isSet(option)) {
+        throw UsageError(QStringLiteral("option --%1 is required").arg(option));
+    }
+    return parser.value(option);
+}
+
+QString chooseOne(const QCommandLineParser& parser, const QString& option,
+                  const QStringList& choices, const QString& fallback) {
+    if (!parser.isSet(option)) {
+        return fallback;
+    }
+    const QString value = parser.value(option).trimmed().toLower();
+    if (!choices.contains(value)) {
+        throw UsageError(QStringLiteral("option --%1 \"%2\": expected one of %3")
+                             .arg(option, parser.value(option), choices.join(QStringLiteral("|"))));
+    }
+    return value;
+}
+
+QJsonValue jsonNumber(double value) {
+    if (!std::isfinite(value)) {
+        return QJsonValue(QJsonValue::Null);
+    }
+    return QJsonValue(value);
+}
+
+void printJson(const QJsonObject& object) {
+    const QByteArray text = QJsonDocument(object).toJson(QJsonDocument::Indented);
+    std::fwrite(text.constData(), 1, static_cast<std::size_t>(text.size()), stdout);
+    std::fflush(stdout);
+}
+
+void printLine(const QString& line) {
+    QTextStream out(stdout);
+    out << line << '\n';
+}
+
+} // namespace mw::cli

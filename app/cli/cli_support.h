@@ -1,0 +1,53 @@
+// Shared plumbing for headless commands: option parsing with the core quantity parser,
+// one-line errors, JSON output.
+#pragma once
+
+#include "core/units/quantity.h"
+
+#include <QCommandLineParser>
+#include <QJsonObject>
+#include <QString>
+#include <QStringList>
+
+#include <optional>
+#include <stdexcept>
+#include <string>
+
+namespace mw::cli {
+
+// Thrown for anything the user got wrong; the dispatcher prints it as one line, exit code 2.
+class UsageError : public std::runtime_error {
+public:
+    explicit UsageError(const QString& message);
+};
+
+// Parses `arguments` (those after the command name) against the options added to `parser`;
+// adds --json and --help. Throws UsageError naming the unknown or malformed option.
+void parseOptions(QCommandLineParser& parser, const QString& commandLine,
+                  const QStringList& arguments);
+
+// True when --help was given: the usage text has then been printed to stdout.
+bool helpRequested(const QCommandLineParser& parser, const QString& commandLine);
+
+// Reads a required option as a quantity of `unit`; the error names the option and the reason.
+double requireQuantity(const QCommandLineParser& parser, const QString& option, Unit unit);
+std::optional<double> optionalQuantity(const QCommandLineParser& parser, const QString& option,
+                                       Unit unit);
+
+// Reads a required option's raw text; UsageError when it is missing.
+QString requireText(const QCommandLineParser& parser, const QString& option);
+
+// Reads an option that must be one of `choices` (or `fallback` when absent).
+QString chooseOne(const QCommandLineParser& parser, const QString& option,
+                  const QStringList& choices, const QString& fallback);
+
+// JSON number or null for non-finite values (JSON has no NaN/inf).
+QJsonValue jsonNumber(double value);
+
+// Prints compact-but-readable JSON followed by a newline to stdout.
+void printJson(const QJsonObject& object);
+
+// Prints one line of text to stdout.
+void printLine(const QString& line);
+
+} // namespace mw::cli

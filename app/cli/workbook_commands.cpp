@@ -1,0 +1,10 @@
+// Headless command family; see command_table.h for the commands it will hold.
+#include "app/cli/command_table.h"
+
+namespace mw::cli {
+
+std::vector<Command> workbookCommands() {
+    return {};
+}
+
+} // namespace mw::cli

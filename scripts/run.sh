@@ -1,0 +1,22 @@
+#!/usr/bin/env bash
+# Installs what is missing, builds a Release build and opens Meterwright on the demo workbook.
+# Usage: bash scripts/run.sh        (needs a display; else: xvfb-run -a bash scripts/run.sh)
+set -euo pipefail
+source "$(dirname "${BASH_SOURCE[0]}")/setup.sh"
+
+mw_install_packages
+mw_build "$MW_ROOT/build/release"
+
+app="$MW_ROOT/build/release/app/meterwright"
+if [ -z "${DISPLAY:-}" ] && [ -z "${WAYLAND_DISPLAY:-}" ] && [ -z "${QT_QPA_PLATFORM:-}" ]; then
+    echo "run: built $app, but there is no display (DISPLAY and WAYLAND_DISPLAY are unset)." >&2
+    echo "run: to open the window on a virtual display: xvfb-run -a bash scripts/run.sh" >&2
+    exit 2
+fi
+
+demo="$MW_ROOT/build/demo-workbook.mwb"
+if "$app" --help | grep -q '^  demo '; then
+    [ -f "$demo" ] || "$app" demo "$demo"
+    exec "$app" "$demo"
+fi
+exec "$app"

@@ -1,0 +1,10 @@
+// Catch2 main for storage tests: one QCoreApplication so Qt SQL can load its drivers.
+#define CATCH_CONFIG_RUNNER
+#include <catch2/catch.hpp>
+
+#include <QCoreApplication>
+
+int main(int argc, char* argv[]) {
+    QCoreApplication app(argc, argv);
+    return Catch::Session().run(argc, argv);
+}
