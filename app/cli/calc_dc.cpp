@@ -1,10 +1,388 @@
-// Headless command family; see command_table.h for the commands it will hold.
+// `meterwright calc shunt|ayrton|temperature|eseries`: DC range design from the command line.
+#include "app/cli/cli_support.h"
 #include "app/cli/command_table.h"
+#include "core/circuits/ammeter.h"
+#include "core/circuits/coil_temperature.h"
+#include "core/circuits/eseries.h"
+#include "core/circuits/movement.h"
+#include "core/units/quantity.h"
+
+#include <QJsonArray>
+#include <QJsonObject>
+
+#include <cmath>
+#include <vector>
 
 namespace mw::cli {
+namespace {
+
+QString eng(double value, Unit unit, int digits = 4) {
+    return QString::fromStdString(formatEngineering(value, digits, unit));
+}
+
+QCommandLineOption valueOption(const QString& name, const QString& help, const QString& value) {
+    return QCommandLineOption(name, help, value);
+}
+
+Movement movementFrom(const QCommandLineParser& parser) {
+    const Movement movement{requireQuantity(parser, QStringLiteral("ifs"), Unit::Ampere),
+                            requireQuantity(parser, QStringLiteral("rm"), Unit::Ohm)};
+    checkMovement(movement);
+    return movement;
+}
+
+void addMovementOptions(QCommandLineParser& parser) {
+    parser.addOption(valueOption(QStringLiteral("ifs"),
+                                 QStringLiteral("Full-scale current of the movement (e.g. 1mA)."),
+                                 QStringLiteral("A")));
+    parser.addOption(valueOption(QStringLiteral("rm"),
+                                 QStringLiteral("Coil resistance of the movement (e.g. 100)."),
+                                 QStringLiteral("OHM")));
+}
+
+// Splits "10mA,100mA,1A" and reads each item as a current; the error names the item.
+std::vector<double> currentList(const QCommandLineParser& parser, const QString& option) {
+    const QString text = requireText(parser, option);
+    std::vector<double> values;
+    const QStringList items = text.split(QLatin1Char(','));
+    for (int i = 0; i < items.size(); ++i) {
+        try {
+            values.push_back(parseValue(items[i].trimmed().toStdString(), Unit::Ampere));
+        } catch (const QuantityError& error) {
+            throw UsageError(QStringLiteral("option --%1, item %2 \"%3\": %4")
+                                 .arg(option)
+                                 .arg(i + 1)
+                                 .arg(items[i], QString::fromStdString(error.what())));
+        }
+    }
+    return values;
+}
+
+int runShunt(const QStringList& arguments) {
+    const QString command = QStringLiteral("calc shunt");
+    QCommandLineParser parser;
+    parser.setApplicationDescription(
+        QStringLiteral("Shunt for a DC ammeter range: R_sh = I_fs·R_m / (I - I_fs)."));
+    addMovementOptions(parser);
+    parser.addOption(valueOption(QStringLiteral("range"),
+                                 QStringLiteral("Full-scale current of the range (e.g. 1A)."),
+                                 QStringLiteral("A")));
+    parser.addOption(valueOption(QStringLiteral("rating"),
+                                 QStringLiteral("Power rating of the shunt (default 0.25W)."),
+                                 QStringLiteral("W")));
+    parseOptions(parser, command, arguments);
+    if (helpRequested(parser, command)) {
+        return 0;
+    }
+    const Movement movement = movementFrom(parser);
+    const double amps_range = requireQuantity(parser, QStringLiteral("range"), Unit::Ampere);
+    const double watts_rating =
+        optionalQuantity(parser, QStringLiteral("rating"), Unit::Watt).value_or(kTypicalRating_W);
+    const double ohms_shunt = shunt_ohm(movement, amps_range);
+    const double amps_shunt = amps_range - movement.amps_fs;
+    const Dissipation heat = dissipation(ohms_shunt, amps_shunt, watts_rating);
+    const double ohms_meter = ohms_shunt * movement.ohms_coil / (ohms_shunt + movement.ohms_coil);
+    if (parser.isSet(QStringLiteral("json"))) {
+        printJson({{QStringLiteral("shunt_ohm"), jsonNumber(ohms_shunt)},
+                   {QStringLiteral("range_a"), jsonNumber(amps_range)},
+                   {QStringLiteral("shunt_current_a"), jsonNumber(amps_shunt)},
+                   {QStringLiteral("meter_resistance_ohm"), jsonNumber(ohms_meter)},
+                   {QStringLiteral("burden_v"), jsonNumber(movement.fullScaleDrop_V())},
+                   {QStringLiteral("dissipation_w"), jsonNumber(heat.watts_fs)},
+                   {QStringLiteral("dissipation_overrange_w"), jsonNumber(heat.watts_overrange)},
+                   {QStringLiteral("exceeds_rating"), heat.exceedsRating}});
+        return 0;
+    }
+    printLine(QStringLiteral("shunt            %1").arg(eng(ohms_shunt, Unit::Ohm)));
+    printLine(
+        QStringLiteral("shunt current    %1 at full scale").arg(eng(amps_shunt, Unit::Ampere)));
+    printLine(QStringLiteral("meter resistance %1, burden %2 at full scale")
+                  .arg(eng(ohms_meter, Unit::Ohm), eng(movement.fullScaleDrop_V(), Unit::Volt)));
+    printLine(
+        QStringLiteral("dissipation      %1 at full scale, %2 at 120 %%3")
+            .arg(eng(heat.watts_fs, Unit::Watt), eng(heat.watts_overrange, Unit::Watt),
+                 heat.exceedsRating ? QStringLiteral(" (above half the rating)") : QString()));
+    return 0;
+}
+
+const QString kAyrtonTopology = QStringLiteral(
+    "one resistor string from the common terminal to the movement's free terminal; "
+    "taps_ohm[k] is the resistance from the common terminal to the tap of ranges_a[k] "
+    "(ranges ascending, taps_ohm[0] is the whole string); sections_ohm[j] is the j-th "
+    "resistor counted from the common terminal (sections_ohm[0] is used alone on the highest "
+    "range, the last is added only on the lowest)");
+
+int runAyrton(const QStringList& arguments) {
+    const QString command = QStringLiteral("calc ayrton");
+    QCommandLineParser parser;
+    parser.setApplicationDescription(
+        QStringLiteral("Ayrton (universal) shunt taps for several ammeter ranges."));
+    addMovementOptions(parser);
+    parser.addOption(valueOption(QStringLiteral("ranges"),
+                                 QStringLiteral("Comma-separated ranges (e.g. 10mA,100mA,1A)."),
+                                 QStringLiteral("LIST")));
+    parseOptions(parser, command, arguments);
+    if (helpRequested(parser, command)) {
+        return 0;
+    }
+    const Movement movement = movementFrom(parser);
+    const AyrtonShunt shunt = ayrtonShunt(movement, currentList(parser, QStringLiteral("ranges")));
+    if (parser.isSet(QStringLiteral("json"))) {
+        QJsonArray ranges;
+        QJsonArray taps;
+        QJsonArray sections;
+        for (std::size_t k = 0; k < shunt.amps_ranges.size(); ++k) {
+            ranges.append(jsonNumber(shunt.amps_ranges[k]));
+            taps.append(jsonNumber(shunt.taps_ohm[k]));
+            sections.append(jsonNumber(shunt.sections_ohm[k]));
+        }
+        printJson({{QStringLiteral("ranges_a"), ranges},
+                   {QStringLiteral("taps_ohm"), taps},
+                   {QStringLiteral("sections_ohm"), sections},
+                   {QStringLiteral("total_ohm"), jsonNumber(shunt.total_ohm)},
+                   {QStringLiteral("topology"), kAyrtonTopology}});
+        return 0;
+    }
+    printLine(QStringLiteral("whole string     %1").arg(eng(shunt.total_ohm, Unit::Ohm)));
+    for (std::size_t k = 0; k < shunt.amps_ranges.size(); ++k) {
+        printLine(QStringLiteral("range %1  tap at %2 from the common terminal")
+                      .arg(eng(shunt.amps_ranges[k], Unit::Ampere).leftJustified(10),
+                           eng(shunt.taps_ohm[k], Unit::Ohm)));
+    }
+    for (std::size_t j = 0; j < shunt.sections_ohm.size(); ++j) {
+        printLine(QStringLiteral("section %1 from the common terminal: %2")
+                      .arg(j + 1)
+                      .arg(eng(shunt.sections_ohm[j], Unit::Ohm)));
+    }
+    return 0;
+}
+
+// Reads a temperature option in °C ("23C", "296.15K", "23"), or `fallback` when absent.
+double celsiusOption(const QCommandLineParser& parser, const QString& option, double fallback) {
+    return optionalQuantity(parser, option, Unit::DegreeCelsius).value_or(fallback);
+}
+
+void addTemperatureOptions(QCommandLineParser& parser) {
+    const QList<QCommandLineOption> options{
+        valueOption(QStringLiteral("rm"), QStringLiteral("Coil resistance (copper)."),
+                    QStringLiteral("OHM")),
+        valueOption(QStringLiteral("rm-at"),
+                    QStringLiteral("Temperature at which --rm was measured (default 20C)."),
+                    QStringLiteral("TEMP")),
+        valueOption(QStringLiteral("ref"),
+                    QStringLiteral("Temperature at which the meter is adjusted (default 23C)."),
+                    QStringLiteral("TEMP")),
+        valueOption(QStringLiteral("temp"),
+                    QStringLiteral("Working temperature for the span error."),
+                    QStringLiteral("TEMP")),
+        valueOption(QStringLiteral("series"),
+                    QStringLiteral("Low-tempco resistance in series with the coil (multiplier "
+                                   "or swamping resistor, default 0)."),
+                    QStringLiteral("OHM")),
+        valueOption(QStringLiteral("series-tempco"),
+                    QStringLiteral("Tempco of --series (e.g. 15ppm/K, default 0)."),
+                    QStringLiteral("TC")),
+        valueOption(QStringLiteral("shunt"),
+                    QStringLiteral("Shunt across coil + series: the meter is an ammeter."),
+                    QStringLiteral("OHM")),
+        valueOption(QStringLiteral("shunt-tempco"),
+                    QStringLiteral("Tempco of the shunt (default 0)."), QStringLiteral("TC")),
+        valueOption(QStringLiteral("target"),
+                    QStringLiteral("Design a swamping resistor keeping |span error| within "
+                                   "this (e.g. 0.5%)."),
+                    QStringLiteral("PERCENT")),
+        valueOption(QStringLiteral("from"),
+                    QStringLiteral("Lowest working temperature for --target."),
+                    QStringLiteral("TEMP")),
+        valueOption(QStringLiteral("to"),
+                    QStringLiteral("Highest working temperature for --target."),
+                    QStringLiteral("TEMP")),
+        valueOption(QStringLiteral("swamp-tempco"),
+                    QStringLiteral("Tempco of the swamping resistor (default 0)."),
+                    QStringLiteral("TC")),
+        valueOption(QStringLiteral("ifs"),
+                    QStringLiteral("With --range: design for an ammeter, shunt resized."),
+                    QStringLiteral("A")),
+        valueOption(QStringLiteral("range"),
+                    QStringLiteral("Ammeter range for --target (with --ifs)."),
+                    QStringLiteral("A")),
+    };
+    parser.addOptions(options);
+}
+
+SwampRequest swampRequestFrom(const QCommandLineParser& parser, double ohms_coil_20C,
+                              double celsius_ref) {
+    SwampRequest request;
+    request.ohms_coil_20C = ohms_coil_20C;
+    request.celsius_ref = celsius_ref;
+    request.celsius_min = celsiusOption(parser, QStringLiteral("from"), celsius_ref);
+    request.celsius_max = celsiusOption(parser, QStringLiteral("to"), celsius_ref);
+    if (!parser.isSet(QStringLiteral("from")) || !parser.isSet(QStringLiteral("to"))) {
+        throw UsageError(QStringLiteral("option --target needs --from and --to"));
+    }
+    request.error_limit_fraction =
+        requireQuantity(parser, QStringLiteral("target"), Unit::Percent) / 100.0;
+    request.swamp_tempco_per_K =
+        optionalQuantity(parser, QStringLiteral("swamp-tempco"), Unit::PerKelvin).value_or(0.0);
+    request.amps_fs = optionalQuantity(parser, QStringLiteral("ifs"), Unit::Ampere);
+    request.amps_range = optionalQuantity(parser, QStringLiteral("range"), Unit::Ampere);
+    request.shunt_tempco_per_K =
+        optionalQuantity(parser, QStringLiteral("shunt-tempco"), Unit::PerKelvin).value_or(0.0);
+    return request;
+}
+
+int runTemperature(const QStringList& arguments) {
+    const QString command = QStringLiteral("calc temperature");
+    QCommandLineParser parser;
+    parser.setApplicationDescription(QStringLiteral(
+        "Copper coil resistance at a temperature (IEC 60028, 0.00393 /K at 20 °C), the span "
+        "error it causes, and a swamping resistor that keeps the error within a target."));
+    addTemperatureOptions(parser);
+    parseOptions(parser, command, arguments);
+    if (helpRequested(parser, command)) {
+        return 0;
+    }
+    const double ohms_measured = requireQuantity(parser, QStringLiteral("rm"), Unit::Ohm);
+    const double ohms_20C = copperResistanceAt20_ohm(
+        ohms_measured, celsiusOption(parser, QStringLiteral("rm-at"), kCopperReference_C));
+    const double celsius_ref = celsiusOption(parser, QStringLiteral("ref"), 23.0);
+    const auto celsius = optionalQuantity(parser, QStringLiteral("temp"), Unit::DegreeCelsius);
+    if (!celsius && !parser.isSet(QStringLiteral("target"))) {
+        throw UsageError(QStringLiteral("give --temp (span error) or --target (swamping design)"));
+    }
+    QJsonObject json{{QStringLiteral("coil_ohm_20c"), jsonNumber(ohms_20C)},
+                     {QStringLiteral("coil_ohm_at_ref"),
+                      jsonNumber(copperResistance_ohm(ohms_20C, celsius_ref))}};
+    QStringList lines{QStringLiteral("coil at 20 °C        %1").arg(eng(ohms_20C, Unit::Ohm))};
+    if (celsius) {
+        CoilCircuit circuit;
+        circuit.ohms_coil_20C = ohms_20C;
+        circuit.series = {
+            optionalQuantity(parser, QStringLiteral("series"), Unit::Ohm).value_or(0.0),
+            optionalQuantity(parser, QStringLiteral("series-tempco"), Unit::PerKelvin)
+                .value_or(0.0)};
+        if (const auto shunt = optionalQuantity(parser, QStringLiteral("shunt"), Unit::Ohm)) {
+            circuit.shunt = TempcoResistor{
+                *shunt, optionalQuantity(parser, QStringLiteral("shunt-tempco"), Unit::PerKelvin)
+                            .value_or(0.0)};
+        }
+        const double ohms_hot = copperResistance_ohm(ohms_20C, *celsius);
+        const double error = spanError(circuit, *celsius, celsius_ref);
+        json.insert(QStringLiteral("coil_ohm_at_temp"), jsonNumber(ohms_hot));
+        json.insert(QStringLiteral("span_error_percent"), jsonNumber(100.0 * error));
+        lines << QStringLiteral("coil at %1  %2")
+                     .arg(eng(*celsius, Unit::DegreeCelsius, 3).leftJustified(13),
+                          eng(ohms_hot, Unit::Ohm));
+        lines << QStringLiteral("span error           %1 against %2")
+                     .arg(eng(100.0 * error, Unit::Percent, 3),
+                          eng(celsius_ref, Unit::DegreeCelsius, 3));
+    }
+    if (parser.isSet(QStringLiteral("target"))) {
+        const SwampDesign design = designSwamp(swampRequestFrom(parser, ohms_20C, celsius_ref));
+        json.insert(QStringLiteral("swamp_ohm"), jsonNumber(design.ohms_swamp_20C));
+        json.insert(QStringLiteral("swamp_shunt_ohm"), design.ohms_shunt_20C
+                                                           ? jsonNumber(*design.ohms_shunt_20C)
+                                                           : QJsonValue(QJsonValue::Null));
+        json.insert(QStringLiteral("swamp_worst_error_percent"),
+                    jsonNumber(100.0 * design.worst_error_fraction));
+        json.insert(QStringLiteral("swamp_worst_at_c"), jsonNumber(design.celsius_worst));
+        lines << QStringLiteral("swamping resistor    %1 (worst %2 at %3)")
+                     .arg(eng(design.ohms_swamp_20C, Unit::Ohm),
+                          eng(100.0 * design.worst_error_fraction, Unit::Percent, 3),
+                          eng(design.celsius_worst, Unit::DegreeCelsius, 3));
+        if (design.ohms_shunt_20C) {
+            lines << QStringLiteral("resized shunt        %1")
+                         .arg(eng(*design.ohms_shunt_20C, Unit::Ohm));
+        }
+    }
+    if (parser.isSet(QStringLiteral("json"))) {
+        printJson(json);
+    } else {
+        printLine(lines.join(QLatin1Char('\n')));
+    }
+    return 0;
+}
+
+int runEseries(const QStringList& arguments) {
+    const QString command = QStringLiteral("calc eseries");
+    QCommandLineParser parser;
+    parser.setApplicationDescription(QStringLiteral(
+        "Nearest IEC 60063 value not above a computed resistance, and the trim to reach it."));
+    parser.addOption(valueOption(QStringLiteral("value"),
+                                 QStringLiteral("Computed resistance (e.g. 4k7)."),
+                                 QStringLiteral("OHM")));
+    parser.addOption(valueOption(QStringLiteral("series"),
+                                 QStringLiteral("E6, E12, E24, E48, E96 (default) or E192."),
+                                 QStringLiteral("SERIES")));
+    parser.addOption(valueOption(QStringLiteral("current"),
+                                 QStringLiteral("Current at full scale, for the dissipation."),
+                                 QStringLiteral("A")));
+    parser.addOption(valueOption(QStringLiteral("rating"),
+                                 QStringLiteral("Power rating of the part (default 0.25W)."),
+                                 QStringLiteral("W")));
+    parseOptions(parser, command, arguments);
+    if (helpRequested(parser, command)) {
+        return 0;
+    }
+    const double ohms = requireQuantity(parser, QStringLiteral("value"), Unit::Ohm);
+    const QString seriesText = parser.isSet(QStringLiteral("series"))
+                                   ? parser.value(QStringLiteral("series"))
+                                   : QStringLiteral("E96");
+    const auto series = eseriesFromText(seriesText.trimmed().toStdString());
+    if (!series) {
+        throw UsageError(QStringLiteral("option --series \"%1\": expected one of "
+                                        "E6|E12|E24|E48|E96|E192")
+                             .arg(seriesText));
+    }
+    const ResistorChoice choice = chooseResistor(ohms, *series);
+    QJsonObject json{
+        {QStringLiteral("wanted_ohm"), jsonNumber(ohms)},
+        {QStringLiteral("series"), QString::fromUtf8(toText(*series).data())},
+        {QStringLiteral("nearest_not_above_ohm"), jsonNumber(choice.ohms_standard)},
+        {QStringLiteral("nearest_ohm"), jsonNumber(nearestStandard(ohms, *series))},
+        {QStringLiteral("trim_ohm"), jsonNumber(choice.ohms_trim)},
+        {QStringLiteral("trim_range_ohm"), jsonNumber(choice.ohms_trim_range)},
+        {QStringLiteral("trimmer_ohm"), jsonNumber(choice.ohms_trimmer)},
+        {QStringLiteral("tolerance_percent"), jsonNumber(100.0 * eseriesTolerance(*series))}};
+    QStringList lines{
+        QStringLiteral("%1 not above %2: %3, trim %4 (trimmer %5 covers the %6 tolerance)")
+            .arg(seriesText.toUpper(), eng(ohms, Unit::Ohm), eng(choice.ohms_standard, Unit::Ohm),
+                 eng(choice.ohms_trim, Unit::Ohm), eng(choice.ohms_trimmer, Unit::Ohm, 2),
+                 eng(100.0 * eseriesTolerance(*series), Unit::Percent, 2))};
+    if (const auto amps = optionalQuantity(parser, QStringLiteral("current"), Unit::Ampere)) {
+        const double rating = optionalQuantity(parser, QStringLiteral("rating"), Unit::Watt)
+                                  .value_or(kTypicalRating_W);
+        const Dissipation heat = dissipation(ohms, *amps, rating);
+        json.insert(QStringLiteral("dissipation_w"), jsonNumber(heat.watts_fs));
+        json.insert(QStringLiteral("dissipation_overrange_w"), jsonNumber(heat.watts_overrange));
+        json.insert(QStringLiteral("exceeds_rating"), heat.exceedsRating);
+        lines << QStringLiteral("dissipation %1 at full scale, %2 at 120 %%3")
+                     .arg(eng(heat.watts_fs, Unit::Watt), eng(heat.watts_overrange, Unit::Watt),
+                          heat.exceedsRating ? QStringLiteral(" (above half the rating)")
+                                             : QString());
+    }
+    if (parser.isSet(QStringLiteral("json"))) {
+        printJson(json);
+    } else {
+        printLine(lines.join(QLatin1Char('\n')));
+    }
+    return 0;
+}
+
+} // namespace
 
 std::vector<Command> dcCalcCommands() {
-    return {};
+    return {
+        {QStringLiteral("shunt"), QStringLiteral("shunt resistor for a DC ammeter range"),
+         runShunt},
+        {QStringLiteral("ayrton"), QStringLiteral("Ayrton shunt taps for several ammeter ranges"),
+         runAyrton},
+        {QStringLiteral("temperature"),
+         QStringLiteral("coil resistance, span error and swamping resistor vs temperature"),
+         runTemperature},
+        {QStringLiteral("eseries"),
+         QStringLiteral("nearest IEC 60063 value not above, trim and dissipation"), runEseries},
+    };
 }
 
 } // namespace mw::cli

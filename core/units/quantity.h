@@ -21,6 +21,7 @@ enum class Unit {
     DegreeCelsius,
     Percent,
     OhmPerVolt,
+    PerKelvin, // temperature coefficient: "0.00393/K", "15 ppm/K", "0.4 %/K"
 };
 
 // value is in the coherent unit named by `unit` (volts, amperes, ohms ...); a Percent quantity
@@ -35,6 +36,8 @@ struct ParseOptions {
 };
 
 // A precise parse error: what was wrong, and the 0-based character position where it was found.
+// Positions count Unicode characters, not bytes ("µ" is one character). The message itself
+// quotes the input and names the 1-based character for people.
 class QuantityError : public std::runtime_error {
 public:
     QuantityError(const std::string& message, std::size_t position);
@@ -45,6 +48,9 @@ private:
 };
 
 // Parses a number with optional SI prefix and unit; throws QuantityError.
+// Accepted: "4.7k", "4k7" / "4R7" / "R47" (IEC 60062 letter as decimal point), "50u", "50µA",
+// "1 mA", "10 Vrms", "2.2 MΩ", "2.2Mohm", "1e3", "-0.25", "12.5 %", "23C", "23 °C", "296.15K",
+// "50Hz", "20k/V", "20 kΩ/V", "15 ppm/K". A bare "K" is kelvin; kilo is a lower-case "k".
 Quantity parseQuantity(std::string_view text, const ParseOptions& options = {});
 
 // Parses a value that must be of `expected` unit (a bare number is taken in that unit).
@@ -52,8 +58,15 @@ Quantity parseQuantity(std::string_view text, const ParseOptions& options = {});
 double parseValue(std::string_view text, Unit expected, const ParseOptions& options = {});
 
 // Engineering notation with `significantDigits` digits and an SI prefix: "4.70 kΩ", "-250 mV".
+// Prefixes run from p to G; outside that (and for °C, K, %, /K, which take no prefix) the
+// mantissa is written with an exponent ("1.00e-15 A"). Every finite result parses back to the
+// value rounded to the printed digits. Non-finite values print as "NaN", "inf", "-inf".
+// significantDigits is clamped to 1..17.
 std::string formatEngineering(double value, int significantDigits, Unit unit = Unit::Dimensionless);
 
 std::string_view unitSymbol(Unit unit);
+
+// What kind of value a unit measures, for messages: "a voltage", "a resistance" ...
+std::string_view unitDescription(Unit unit);
 
 } // namespace mw

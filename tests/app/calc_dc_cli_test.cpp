@@ -1,0 +1,185 @@
+// `meterwright calc shunt|ayrton|temperature|eseries` run as a separate process: JSON results
+// against textbook examples, and bad input giving exit code 2 with one line on stderr.
+#include "support/approx.h"
+
+#include <catch2/catch.hpp>
+
+#include <QJsonArray>
+#include <QJsonDocument>
+#include <QJsonObject>
+#include <QProcess>
+#include <QStringList>
+
+#include <cmath>
+
+using mwtest::relative;
+
+namespace {
+
+struct Result {
+    int exitCode = -1;
+    QByteArray out;
+    QByteArray err;
+};
+
+Result runCalc(const QStringList& arguments) {
+    QProcess process;
+    process.start(QStringLiteral(MW_BINARY_DIR "/app/meterwright"),
+                  QStringList{QStringLiteral("calc")} + arguments);
+    REQUIRE(process.waitForFinished(30000));
+    REQUIRE(process.exitStatus() == QProcess::NormalExit);
+    return {process.exitCode(), process.readAllStandardOutput(), process.readAllStandardError()};
+}
+
+QJsonObject runJson(const QStringList& arguments) {
+    const Result result = runCalc(arguments + QStringList{QStringLiteral("--json")});
+    INFO(result.err.toStdString());
+    REQUIRE(result.exitCode == 0);
+    QJsonParseError error{};
+    const QJsonDocument document = QJsonDocument::fromJson(result.out, &error);
+    REQUIRE(error.error == QJsonParseError::NoError);
+    return document.object();
+}
+
+// Exit code 2 and exactly one line on stderr that contains `words`.
+void requireUsageError(const QStringList& arguments, const char* words) {
+    const Result result = runCalc(arguments);
+    INFO("arguments: " << arguments.join(QLatin1Char(' ')).toStdString());
+    INFO("stderr: " << result.err.toStdString());
+    CHECK(result.exitCode == 2);
+    CHECK(result.err.count('\n') == 1);
+    CHECK(result.err.endsWith('\n'));
+    CHECK(result.err.contains(words));
+    CHECK(result.out.isEmpty());
+}
+
+QStringList args(std::initializer_list<const char*> words) {
+    QStringList list;
+    for (const char* word : words) {
+        list << QString::fromUtf8(word);
+    }
+    return list;
+}
+
+} // namespace
+
+TEST_CASE("calc shunt gives the shunt of Helfrick & Cooper Example 4-1") {
+    // Helfrick & Cooper Example 4-1: 1 mA, 100 Ω movement, 100 mA range -> 1.01 Ω.
+    const QJsonObject json =
+        runJson(args({"shunt", "--ifs", "1mA", "--rm", "100", "--range", "100 mA"}));
+    CHECK(json.value(QStringLiteral("shunt_ohm")).toDouble() == relative(1.0101010101, 1e-9));
+    CHECK(json.value(QStringLiteral("shunt_current_a")).toDouble() == relative(0.099, 1e-12));
+    CHECK(json.value(QStringLiteral("burden_v")).toDouble() == relative(0.1, 1e-12));
+    CHECK(json.value(QStringLiteral("exceeds_rating")).isBool());
+}
+
+TEST_CASE("calc ayrton gives the taps of Helfrick & Cooper Example 4-2, by topology") {
+    // Helfrick & Cooper Example 4-2: 1 mA, 50 Ω, ranges 1/5/10 A -> 0.005005 Ω alone on 10 A,
+    // 0.005005 Ω added for 5 A, 0.04004 Ω added for 1 A (check-values §10).
+    const QJsonObject json =
+        runJson(args({"ayrton", "--ifs", "1mA", "--rm", "50", "--ranges", "10A,1A,5A"}));
+    const QJsonArray ranges = json.value(QStringLiteral("ranges_a")).toArray();
+    const QJsonArray taps = json.value(QStringLiteral("taps_ohm")).toArray();
+    const QJsonArray sections = json.value(QStringLiteral("sections_ohm")).toArray();
+    REQUIRE(ranges.size() == 3);
+    REQUIRE(taps.size() == 3);
+    REQUIRE(sections.size() == 3);
+    CHECK(ranges[0].toDouble() == 1.0);
+    CHECK(ranges[2].toDouble() == 10.0);
+    CHECK(taps[0].toDouble() == relative(0.05005, 1e-3));  // whole string on 1 A
+    CHECK(taps[1].toDouble() == relative(0.01001, 1e-3));  // two sections on 5 A
+    CHECK(taps[2].toDouble() == relative(0.005005, 1e-3)); // one section on 10 A
+    CHECK(sections[0].toDouble() == relative(0.005005, 1e-3));
+    CHECK(sections[1].toDouble() == relative(0.005005, 1e-3));
+    CHECK(sections[2].toDouble() == relative(0.04004, 1e-3));
+    CHECK(json.value(QStringLiteral("topology")).toString().contains(QStringLiteral("common")));
+}
+
+TEST_CASE("calc temperature gives the IEC 60028 coil resistance and the span error") {
+    // IEC 60028 copper, α20 = 0.00393 /K: 100 Ω at 20 °C is 103.93 Ω at 30 °C.
+    // Helfrick & Cooper Example 4-3 10 V range (9.9 kΩ multiplier): span error ≈ -α·ΔT·R_m/R_v
+    // (swamping rule, check-values §8).
+    const QJsonObject json = runJson(
+        args({"temperature", "--rm", "100", "--temp", "30C", "--ref", "20 °C", "--series", "9k9"}));
+    CHECK(json.value(QStringLiteral("coil_ohm_at_temp")).toDouble() == relative(103.93, 1e-9));
+    CHECK(json.value(QStringLiteral("span_error_percent")).toDouble() == relative(-0.0393, 1e-3));
+    // Coil measured at 23 °C: referred to 20 °C by the same law (check-values §8: 1.01179).
+    const QJsonObject measured =
+        runJson(args({"temperature", "--rm", "101.179", "--rm-at", "296.15K", "--temp", "20C"}));
+    CHECK(measured.value(QStringLiteral("coil_ohm_20c")).toDouble() == relative(100.0, 1e-5));
+}
+
+TEST_CASE("calc temperature designs a swamping resistor for a target") {
+    // Zero-tempco swamp for a 5 Ω coil within 1 % from 20 to 30 °C: closed form
+    // (R(30) - R(20)) / 0.01 - R(30), derived from the swamping rule (check-values §8).
+    const QJsonObject json = runJson(args({"temperature", "--rm", "5", "--ref", "20C", "--from",
+                                           "20C", "--to", "30C", "--target", "1%"}));
+    const double hot = 5.0 * 1.0393;
+    CHECK(json.value(QStringLiteral("swamp_ohm")).toDouble() ==
+          relative((hot - 5.0) / 0.01 - hot, 1e-7));
+    CHECK(json.value(QStringLiteral("swamp_shunt_ohm")).isNull());
+    CHECK(json.value(QStringLiteral("swamp_worst_at_c")).toDouble() == 30.0);
+    // Negative temperatures are read as values, not as options.
+    const QJsonObject cold =
+        runJson(args({"temperature", "--rm", "50", "--from", "-10C", "--to", "40C", "--target",
+                      "0.5%", "--ifs", "1mA", "--range", "1A", "--swamp-tempco", "15ppm/K"}));
+    CHECK(cold.value(QStringLiteral("swamp_ohm")).toDouble() > 0.0);
+    CHECK(cold.value(QStringLiteral("swamp_shunt_ohm")).toDouble() > 0.0);
+    CHECK(std::abs(cold.value(QStringLiteral("swamp_worst_error_percent")).toDouble()) <=
+          0.5 * (1.0 + 1e-9));
+}
+
+TEST_CASE("calc eseries picks the IEC 60063 value not above and the trim") {
+    // IEC 60063:2015 Table 2 (E96): 8.87 kΩ below 8 950 Ω (Helfrick & Cooper Example 4-9).
+    const QJsonObject e96 = runJson(args({"eseries", "--value", "8950", "--series", "E96"}));
+    CHECK(e96.value(QStringLiteral("nearest_not_above_ohm")).toDouble() == relative(8870.0, 1e-12));
+    CHECK(e96.value(QStringLiteral("trim_ohm")).toDouble() == relative(80.0, 1e-9));
+    CHECK(e96.value(QStringLiteral("nearest_ohm")).toDouble() == relative(8870.0, 1e-12));
+    CHECK(e96.value(QStringLiteral("tolerance_percent")).toDouble() == relative(1.0, 1e-12));
+    // IEC 60063:2015 Table 1 (E24) has 4.7; Table 2 (E96) has 4.64 but not 4.7.
+    const QJsonObject e24 = runJson(args({"eseries", "--value", "4k7", "--series", "e24"}));
+    CHECK(e24.value(QStringLiteral("nearest_not_above_ohm")).toDouble() == relative(4700.0, 1e-12));
+    CHECK(e24.value(QStringLiteral("trim_ohm")).toDouble() == 0.0);
+    const QJsonObject fallback = runJson(args({"eseries", "--value", "4k7"}));
+    CHECK(fallback.value(QStringLiteral("series")).toString() == QStringLiteral("E96"));
+    CHECK(fallback.value(QStringLiteral("nearest_not_above_ohm")).toDouble() ==
+          relative(4640.0, 1e-12));
+    // Helfrick & Cooper Example 4-3: 250 kΩ at 1 mA dissipates 0.25 W (I²R).
+    const QJsonObject heat =
+        runJson(args({"eseries", "--value", "250k", "--current", "1mA", "--series", "E24"}));
+    CHECK(heat.value(QStringLiteral("dissipation_w")).toDouble() == relative(0.25, 1e-12));
+    CHECK(heat.value(QStringLiteral("dissipation_overrange_w")).toDouble() ==
+          relative(0.36, 1e-12));
+    CHECK(heat.value(QStringLiteral("exceeds_rating")).toBool());
+}
+
+TEST_CASE("without --json the commands print readable lines") {
+    const Result result = runCalc(args({"shunt", "--ifs", "1mA", "--rm", "100", "--range", "1A"}));
+    CHECK(result.exitCode == 0);
+    CHECK(result.out.contains("shunt"));
+    CHECK(result.out.contains("m\xce\xa9")); // "mΩ": engineering notation with the ohm sign
+    const Result ayrton =
+        runCalc(args({"ayrton", "--ifs", "1mA", "--rm", "50", "--ranges", "1A,5A,10A"}));
+    CHECK(ayrton.exitCode == 0);
+    CHECK(ayrton.out.contains("section 1 from the common terminal"));
+}
+
+TEST_CASE("bad input gives exit code 2 and one line saying what is wrong") {
+    requireUsageError(args({"shunt", "--ifs", "1mA", "--rm", "100", "--range", "0.5mA"}),
+                      "not above the movement's full-scale current");
+    requireUsageError(args({"shunt", "--ifs", "1mA", "--rm", "5A", "--range", "1A"}),
+                      "a resistance");
+    requireUsageError(args({"shunt", "--ifs", "1mA", "--rm", "100"}), "--range is required");
+    requireUsageError(args({"shunt", "--ifs", "1..2mA", "--rm", "100", "--range", "1A"}),
+                      "character 3");
+    requireUsageError(args({"ayrton", "--ifs", "1mA", "--rm", "50", "--ranges", "1A,xx"}),
+                      "item 2");
+    requireUsageError(args({"ayrton", "--ifs", "1mA", "--rm", "50", "--ranges", "1A,1A"}),
+                      "given twice");
+    requireUsageError(args({"eseries", "--value", "4k7", "--series", "E7"}), "E6|E12");
+    requireUsageError(args({"eseries", "--value", "-5"}), "above 0");
+    requireUsageError(args({"temperature", "--rm", "100"}), "--temp");
+    requireUsageError(args({"temperature", "--rm", "100", "--target", "1%"}), "--from and --to");
+    requireUsageError(args({"temperature", "--rm", "100", "--temp", "30 V"}), "temperature");
+    requireUsageError(args({"shunt", "--bogus", "1"}), "bogus");
+}
