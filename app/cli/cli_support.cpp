@@ -16,6 +16,8 @@ void parseOptions(QCommandLineParser& parser, const QString& commandLine,
                   const QStringList& arguments) {
     parser.setSingleDashWordOptionMode(QCommandLineParser::ParseAsLongOptions);
     parser.addOption({QStringLiteral("json"), QStringLiteral("Print the result as JSON.")});
+    parser.addOption({QStringLiteral("decimal-comma"),
+                      QStringLiteral("Read values written with a decimal comma (4,7k).")});
     parser.addOption({{QStringLiteral("h"), QStringLiteral("help")},
                       QStringLiteral("Show the options of this command.")});
     QStringList withProgram = arguments;
@@ -43,7 +45,9 @@ std::optional<double> optionalQuantity(const QCommandLineParser& parser, const Q
     }
     const QString text = parser.value(option);
     try {
-        return parseValue(text.toStdString(), unit);
+        ParseOptions options;
+        options.decimalComma = parser.isSet(QStringLiteral("decimal-comma"));
+        return parseValue(text.toStdString(), unit, options);
     } catch (const QuantityError& error) {
         throw UsageError(QStringLiteral("option --%1 \"%2\": %3")
                              .arg(option, text, QString::fromStdString(error.what())));

@@ -22,7 +22,8 @@ public:
 };
 
 // Parses `arguments` (those after the command name) against the options added to `parser`;
-// adds --json and --help. Throws UsageError naming the unknown or malformed option.
+// adds --json, --decimal-comma and --help. Throws UsageError naming the unknown or malformed
+// option.
 void parseOptions(QCommandLineParser& parser, const QString& commandLine,
                   const QStringList& arguments);
 
