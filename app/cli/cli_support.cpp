@@ -31,9 +31,11 @@ bool helpRequested(const QCommandLineParser& parser, const QString& commandLine)
     if (!parser.isSet(QStringLiteral("help"))) {
         return false;
     }
+    // Qt's first line names the program's path; say what a person types instead.
     QString text = parser.helpText();
-    text.replace(QStringLiteral("Usage: ") + commandLine,
-                 QStringLiteral("Usage: meterwright ") + commandLine);
+    const qsizetype endOfFirstLine = text.indexOf(QLatin1Char('\n'));
+    text.replace(0, endOfFirstLine,
+                 QStringLiteral("Usage: meterwright %1 [options]").arg(commandLine));
     printLine(text.trimmed());
     return true;
 }
