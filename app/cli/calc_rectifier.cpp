@@ -1,10 +1,372 @@
-// Headless command family; see command_table.h for the commands it will hold.
+// `meterwright calc multiplier|indication|waveform`: voltmeter range design and rectifier
+// meter predictions from the command line.
+#include "app/cli/cli_support.h"
 #include "app/cli/command_table.h"
+#include "core/circuits/eseries.h"
+#include "core/circuits/hazard.h"
+#include "core/circuits/rectifier_design.h"
+#include "core/circuits/rectifier_meter.h"
+#include "core/circuits/waveform.h"
+#include "core/units/quantity.h"
+
+#include <QJsonObject>
+
+#include <cmath>
+#include <limits>
+#include <optional>
 
 namespace mw::cli {
+namespace {
+
+// Reference temperature of IEC 60051-1 when none is marked (the diode data hold at 27 °C).
+constexpr double kDefaultCelsius = 23.0;
+
+QString eng(double value, Unit unit, int digits = 5) {
+    return QString::fromStdString(formatEngineering(value, digits, unit));
+}
+
+void addValueOption(QCommandLineParser& parser, const QString& name, const QString& help,
+                    const QString& value) {
+    parser.addOption(QCommandLineOption(name, help, value));
+}
+
+void addMovementOptions(QCommandLineParser& parser) {
+    addValueOption(parser, QStringLiteral("ifs"),
+                   QStringLiteral("Full-scale current of the movement (e.g. 1mA)."),
+                   QStringLiteral("A"));
+    addValueOption(parser, QStringLiteral("rm"),
+                   QStringLiteral("Coil resistance of the movement (e.g. 1k)."),
+                   QStringLiteral("OHM"));
+    addValueOption(parser, QStringLiteral("rsh"),
+                   QStringLiteral("Resistor across the movement (default: none)."),
+                   QStringLiteral("OHM"));
+    addValueOption(parser, QStringLiteral("rectifier"),
+                   QStringLiteral("none (DC), half (half-wave) or bridge (full-wave)."),
+                   QStringLiteral("KIND"));
+}
+
+void addDiodeOptions(QCommandLineParser& parser) {
+    addValueOption(parser, QStringLiteral("diode"),
+                   QStringLiteral("ideal, silicon (default), schottky or germanium."),
+                   QStringLiteral("KIND"));
+    addValueOption(parser, QStringLiteral("diode-is"),
+                   QStringLiteral("Saturation current IS at 27 °C (replaces the preset's)."),
+                   QStringLiteral("A"));
+    addValueOption(parser, QStringLiteral("diode-n"),
+                   QStringLiteral("Emission coefficient N (replaces the preset's)."),
+                   QStringLiteral("N"));
+    addValueOption(parser, QStringLiteral("diode-rs"),
+                   QStringLiteral("Series resistance RS (replaces the preset's)."),
+                   QStringLiteral("OHM"));
+    addValueOption(parser, QStringLiteral("diode-rf"),
+                   QStringLiteral("Forward resistance of ideal diodes (default 0)."),
+                   QStringLiteral("OHM"));
+    addValueOption(parser, QStringLiteral("temp"),
+                   QStringLiteral("Temperature of the diodes (default 23C)."),
+                   QStringLiteral("TEMP"));
+}
+
+Rectifier rectifierFrom(const QCommandLineParser& parser, const QString& fallback) {
+    const QString kind = chooseOne(
+        parser, QStringLiteral("rectifier"),
+        {QStringLiteral("none"), QStringLiteral("half"), QStringLiteral("bridge")}, fallback);
+    if (kind.isEmpty()) {
+        throw UsageError(QStringLiteral("option --rectifier is required (none|half|bridge)"));
+    }
+    return kind == QStringLiteral("half")     ? Rectifier::HalfWave
+           : kind == QStringLiteral("bridge") ? Rectifier::Bridge
+                                              : Rectifier::None;
+}
+
+RectifierCircuit circuitFrom(const QCommandLineParser& parser, Rectifier rectifier,
+                             double multiplier_ohms) {
+    RectifierCircuit circuit;
+    circuit.rectifier = rectifier;
+    circuit.movement_amps_fs = requireQuantity(parser, QStringLiteral("ifs"), Unit::Ampere);
+    circuit.movement_ohms = requireQuantity(parser, QStringLiteral("rm"), Unit::Ohm);
+    circuit.multiplier_ohms = multiplier_ohms;
+    circuit.shunt_ohms = optionalQuantity(parser, QStringLiteral("rsh"), Unit::Ohm)
+                             .value_or(std::numeric_limits<double>::infinity());
+    validate(circuit);
+    return circuit;
+}
+
+// The meter with the diodes the options ask for: ideal (closed form) or a Shockley preset,
+// optionally with the user's own IS, N and RS.
+RectifierMeter meterFrom(const QCommandLineParser& parser, const RectifierCircuit& circuit) {
+    const QString kind = chooseOne(parser, QStringLiteral("diode"),
+                                   {QStringLiteral("ideal"), QStringLiteral("silicon"),
+                                    QStringLiteral("schottky"), QStringLiteral("germanium")},
+                                   QStringLiteral("silicon"));
+    const bool custom = parser.isSet(QStringLiteral("diode-is")) ||
+                        parser.isSet(QStringLiteral("diode-n")) ||
+                        parser.isSet(QStringLiteral("diode-rs"));
+    if (kind == QStringLiteral("ideal")) {
+        if (custom) {
+            throw UsageError(QStringLiteral("options --diode-is/--diode-n/--diode-rs describe a "
+                                            "real diode; they cannot go with --diode ideal"));
+        }
+        const double forward_ohms =
+            optionalQuantity(parser, QStringLiteral("diode-rf"), Unit::Ohm).value_or(0.0);
+        return RectifierMeter(circuit, IdealDiodes{forward_ohms});
+    }
+    if (parser.isSet(QStringLiteral("diode-rf"))) {
+        throw UsageError(QStringLiteral("option --diode-rf applies to --diode ideal only; a real "
+                                        "diode takes --diode-rs"));
+    }
+    DiodeParameters diode =
+        diodePreset(kind == QStringLiteral("schottky")    ? DiodePreset::Schottky
+                    : kind == QStringLiteral("germanium") ? DiodePreset::Germanium
+                                                          : DiodePreset::SmallSignalSilicon);
+    diode.saturation_current_a = optionalQuantity(parser, QStringLiteral("diode-is"), Unit::Ampere)
+                                     .value_or(diode.saturation_current_a);
+    diode.emission_coefficient =
+        optionalQuantity(parser, QStringLiteral("diode-n"), Unit::Dimensionless)
+            .value_or(diode.emission_coefficient);
+    diode.series_ohms =
+        optionalQuantity(parser, QStringLiteral("diode-rs"), Unit::Ohm).value_or(diode.series_ohms);
+    try {
+        validate(diode);
+    } catch (const std::invalid_argument& error) {
+        throw UsageError(QString::fromStdString(error.what()));
+    }
+    const double celsius = optionalQuantity(parser, QStringLiteral("temp"), Unit::DegreeCelsius)
+                               .value_or(kDefaultCelsius);
+    return RectifierMeter(circuit, diode, celsius);
+}
+
+WaveShape shapeFrom(const QCommandLineParser& parser) {
+    const QString shape =
+        chooseOne(parser, QStringLiteral("waveform"),
+                  {QStringLiteral("sine"), QStringLiteral("square"), QStringLiteral("triangle")},
+                  QStringLiteral("sine"));
+    return shape == QStringLiteral("square")     ? WaveShape::Square
+           : shape == QStringLiteral("triangle") ? WaveShape::Triangle
+                                                 : WaveShape::Sine;
+}
+
+QJsonValue cautionFor(double range_volts, Rectifier rectifier, const Dissipation& heat) {
+    std::optional<std::string> text = hazardCaution(
+        range_volts, rectifier == Rectifier::None ? VoltageKind::Dc : VoltageKind::AcRms);
+    if (heat.exceedsRating) {
+        const std::string rating = "The multiplier dissipates " +
+                                   formatEngineering(heat.watts_overrange, 3, Unit::Watt) +
+                                   " at 120 % of range, above half of a " +
+                                   formatEngineering(heat.watts_rating, 3, Unit::Watt) + " rating.";
+        text = text ? *text + " " + rating : rating;
+    }
+    return text ? QJsonValue(QString::fromStdString(*text)) : QJsonValue(QJsonValue::Null);
+}
+
+int runMultiplier(const QStringList& arguments) {
+    const QString command = QStringLiteral("calc multiplier");
+    QCommandLineParser parser;
+    parser.setApplicationDescription(QStringLiteral(
+        "Multiplier that puts full scale exactly at the range (DC, or rms of a sine through a "
+        "half-wave or bridge rectifier), with the nearest E96 value and its trim."));
+    addMovementOptions(parser);
+    addDiodeOptions(parser);
+    addValueOption(parser, QStringLiteral("range"),
+                   QStringLiteral("Full-scale voltage of the range (e.g. 10V)."),
+                   QStringLiteral("V"));
+    parseOptions(parser, command, arguments);
+    if (helpRequested(parser, command)) {
+        return 0;
+    }
+    const Rectifier rectifier = rectifierFrom(parser, QStringLiteral("none"));
+    const RectifierCircuit circuit = circuitFrom(parser, rectifier, 0.0);
+    const double range_volts = requireQuantity(parser, QStringLiteral("range"), Unit::Volt);
+    const RectifierMeter meter = meterFrom(parser, circuit);
+    const MultiplierSolution solution = solveMultiplier(meter, range_volts);
+
+    const double ohms = solution.multiplier_ohms;
+    const bool positive = ohms > 0.0;
+    const ResistorChoice choice = positive ? chooseResistor(ohms, ESeries::E96) : ResistorChoice{};
+    const Dissipation heat =
+        positive ? dissipation(ohms, solution.multiplier_rms_amps_fs) : Dissipation{};
+    QJsonObject json;
+    json[QStringLiteral("multiplier_ohm")] = jsonNumber(ohms);
+    json[QStringLiteral("multiplier_ideal_ohm")] = jsonNumber(solution.ideal_multiplier_ohms);
+    json[QStringLiteral("sensitivity_ohm_per_volt")] =
+        jsonNumber(acSensitivityOhmPerVolt(circuit, averagePerRms(rectifier)));
+    json[QStringLiteral("nearest_standard_ohm")] = jsonNumber(choice.ohms_standard);
+    json[QStringLiteral("trim_ohm")] = jsonNumber(choice.ohms_trim);
+    json[QStringLiteral("dissipation_w")] = jsonNumber(heat.watts_fs);
+    json[QStringLiteral("multiplier_rms_current_a")] = jsonNumber(solution.multiplier_rms_amps_fs);
+    json[QStringLiteral("caution")] = cautionFor(range_volts, rectifier, heat);
+    if (parser.isSet(QStringLiteral("json"))) {
+        printJson(json);
+        return 0;
+    }
+    printLine(QStringLiteral("multiplier        %1 (ideal diodes %2)")
+                  .arg(eng(ohms, Unit::Ohm), eng(solution.ideal_multiplier_ohms, Unit::Ohm)));
+    printLine(QStringLiteral("sensitivity       %1")
+                  .arg(eng(json[QStringLiteral("sensitivity_ohm_per_volt")].toDouble(),
+                           Unit::OhmPerVolt)));
+    printLine(QStringLiteral("E96 not above     %1 + trim %2")
+                  .arg(eng(choice.ohms_standard, Unit::Ohm, 3), eng(choice.ohms_trim, Unit::Ohm)));
+    printLine(QStringLiteral("dissipation       %1 at full scale")
+                  .arg(eng(heat.watts_fs, Unit::Watt, 3)));
+    if (json[QStringLiteral("caution")].isString()) {
+        printLine(QStringLiteral("caution           ") +
+                  json[QStringLiteral("caution")].toString());
+    }
+    return 0;
+}
+
+int runIndication(const QStringList& arguments) {
+    const QString command = QStringLiteral("calc indication");
+    QCommandLineParser parser;
+    parser.setApplicationDescription(QStringLiteral(
+        "Indication of a voltmeter at a test point: average movement current over a period, "
+        "on a scale marked in rms of a sine (DC for --rectifier none)."));
+    addMovementOptions(parser);
+    addDiodeOptions(parser);
+    addValueOption(parser, QStringLiteral("rs"), QStringLiteral("Multiplier resistance."),
+                   QStringLiteral("OHM"));
+    addValueOption(parser, QStringLiteral("range"),
+                   QStringLiteral("Full-scale value of the range (e.g. 10V)."),
+                   QStringLiteral("V"));
+    addValueOption(parser, QStringLiteral("input"),
+                   QStringLiteral("Applied value: true rms (AC) or DC volts (e.g. 2.5V)."),
+                   QStringLiteral("V"));
+    addValueOption(parser, QStringLiteral("waveform"),
+                   QStringLiteral("sine (default), square or triangle."), QStringLiteral("SHAPE"));
+    addValueOption(parser, QStringLiteral("frequency"),
+                   QStringLiteral("Frequency; the resistive model does not depend on it."),
+                   QStringLiteral("HZ"));
+    parseOptions(parser, command, arguments);
+    if (helpRequested(parser, command)) {
+        return 0;
+    }
+    const Rectifier rectifier = rectifierFrom(parser, QString());
+    const RectifierCircuit circuit =
+        circuitFrom(parser, rectifier, requireQuantity(parser, QStringLiteral("rs"), Unit::Ohm));
+    const double range_volts = requireQuantity(parser, QStringLiteral("range"), Unit::Volt);
+    const double input_volts = requireQuantity(parser, QStringLiteral("input"), Unit::Volt);
+    const auto frequency_hz = optionalQuantity(parser, QStringLiteral("frequency"), Unit::Hertz);
+    if (frequency_hz && !(*frequency_hz > 0.0)) {
+        throw UsageError(QStringLiteral("option --frequency must be above 0 Hz"));
+    }
+    if (rectifier != Rectifier::None && input_volts < 0.0) {
+        throw UsageError(QStringLiteral("option --input: an rms value cannot be negative"));
+    }
+    const RectifierMeter meter = meterFrom(parser, circuit);
+    const Waveform input = rectifier == Rectifier::None
+                               ? Waveform::sineWithOffset(0.0, input_volts)
+                               : Waveform::withRms(shapeFrom(parser), input_volts);
+    const Indication indication = predictIndication(meter, range_volts, input);
+
+    QJsonObject json;
+    json[QStringLiteral("movement_current_avg_a")] = jsonNumber(indication.movement_amps);
+    json[QStringLiteral("indicated")] = jsonNumber(indication.indicated);
+    json[QStringLiteral("error_percent_of_range")] = jsonNumber(indication.error_percent_of_range);
+    json[QStringLiteral("input_v")] = jsonNumber(indication.input_rms_volts);
+    if (parser.isSet(QStringLiteral("json"))) {
+        printJson(json);
+        return 0;
+    }
+    printLine(QStringLiteral("movement current  %1 average")
+                  .arg(eng(indication.movement_amps, Unit::Ampere)));
+    printLine(QStringLiteral("indicated         %1 (applied %2)")
+                  .arg(eng(indication.indicated, Unit::Volt), eng(input_volts, Unit::Volt)));
+    printLine(QStringLiteral("error             %1 % of range")
+                  .arg(QString::number(indication.error_percent_of_range, 'f', 3)));
+    return 0;
+}
+
+// The waveform of `calc waveform`: shape, AC part by rms or peak, and a DC offset for the sine.
+Waveform waveformFrom(const QCommandLineParser& parser) {
+    const WaveShape shape = shapeFrom(parser);
+    if (parser.isSet(QStringLiteral("rms")) && parser.isSet(QStringLiteral("peak"))) {
+        throw UsageError(QStringLiteral("give either --rms or --peak, not both"));
+    }
+    const auto peak_volts = optionalQuantity(parser, QStringLiteral("peak"), Unit::Volt);
+    const double rms_volts =
+        optionalQuantity(parser, QStringLiteral("rms"), Unit::Volt).value_or(1.0);
+    const double offset_volts =
+        optionalQuantity(parser, QStringLiteral("offset"), Unit::Volt).value_or(0.0);
+    if (offset_volts != 0.0 && shape != WaveShape::Sine) {
+        throw UsageError(QStringLiteral("option --offset applies to --waveform sine only"));
+    }
+    if ((peak_volts && *peak_volts < 0.0) || rms_volts < 0.0) {
+        throw UsageError(QStringLiteral("options --rms and --peak cannot be negative"));
+    }
+    Waveform wave = Waveform::withRms(shape, rms_volts);
+    if (peak_volts) {
+        wave = wave.peakVolts() > 0.0 ? wave.scaled(*peak_volts / wave.peakVolts())
+                                      : Waveform::withRms(shape, 0.0);
+    }
+    if (offset_volts != 0.0) {
+        wave = Waveform::sineWithOffset(wave.peakVolts(), offset_volts);
+    }
+    return wave;
+}
+
+int runWaveform(const QStringList& arguments) {
+    const QString command = QStringLiteral("calc waveform");
+    QCommandLineParser parser;
+    parser.setApplicationDescription(
+        QStringLiteral("True rms, rectified average and form factor of a waveform, and what an "
+                       "average-responding meter scaled in rms of a sine reads for it."));
+    addValueOption(parser, QStringLiteral("waveform"),
+                   QStringLiteral("sine (default), square or triangle."), QStringLiteral("SHAPE"));
+    addValueOption(parser, QStringLiteral("rms"),
+                   QStringLiteral("True rms of the AC part (default 1V)."), QStringLiteral("V"));
+    addValueOption(parser, QStringLiteral("peak"),
+                   QStringLiteral("Peak of the AC part, instead of --rms."), QStringLiteral("V"));
+    addValueOption(parser, QStringLiteral("offset"),
+                   QStringLiteral("DC offset added to a sine (default 0V)."), QStringLiteral("V"));
+    addValueOption(parser, QStringLiteral("rectifier"),
+                   QStringLiteral("Meter's rectifier: bridge (default) or half."),
+                   QStringLiteral("KIND"));
+    parseOptions(parser, command, arguments);
+    if (helpRequested(parser, command)) {
+        return 0;
+    }
+    const Waveform wave = waveformFrom(parser);
+    const QString kind =
+        chooseOne(parser, QStringLiteral("rectifier"),
+                  {QStringLiteral("bridge"), QStringLiteral("half")}, QStringLiteral("bridge"));
+    const Rectification rectification =
+        kind == QStringLiteral("half") ? Rectification::HalfWave : Rectification::FullWave;
+    const AverageRespondingReading reading = averageRespondingReading(wave, rectification);
+
+    QJsonObject json;
+    json[QStringLiteral("waveform")] = QString::fromUtf8(shapeName(wave.shape()).data());
+    json[QStringLiteral("rms_v")] = jsonNumber(wave.rms());
+    json[QStringLiteral("average_v")] = jsonNumber(wave.rectifiedAverage());
+    json[QStringLiteral("half_wave_average_v")] = jsonNumber(wave.halfWaveAverage());
+    json[QStringLiteral("mean_v")] = jsonNumber(wave.mean());
+    json[QStringLiteral("form_factor")] = jsonNumber(wave.formFactor());
+    json[QStringLiteral("crest_factor")] = jsonNumber(wave.crestFactor());
+    json[QStringLiteral("reading_v")] = jsonNumber(reading.indicated_volts);
+    json[QStringLiteral("error_percent")] = jsonNumber(reading.error_percent);
+    if (parser.isSet(QStringLiteral("json"))) {
+        printJson(json);
+        return 0;
+    }
+    printLine(QStringLiteral("true rms          %1").arg(eng(wave.rms(), Unit::Volt)));
+    printLine(QStringLiteral("rectified average %1").arg(eng(wave.rectifiedAverage(), Unit::Volt)));
+    printLine(
+        QStringLiteral("form factor       %1").arg(QString::number(wave.formFactor(), 'f', 6)));
+    printLine(QStringLiteral("average-responding meter reads %1 (%2 %)")
+                  .arg(eng(reading.indicated_volts, Unit::Volt),
+                       QString::number(reading.error_percent, 'f', 3)));
+    return 0;
+}
+
+} // namespace
 
 std::vector<Command> rectifierCalcCommands() {
-    return {};
+    return {
+        {QStringLiteral("multiplier"),
+         QStringLiteral("voltmeter multiplier for a range (DC, half-wave, bridge)"), runMultiplier},
+        {QStringLiteral("indication"), QStringLiteral("what a voltmeter indicates at a test point"),
+         runIndication},
+        {QStringLiteral("waveform"),
+         QStringLiteral("rms, average, form factor and average-responding reading"), runWaveform},
+    };
 }
 
 } // namespace mw::cli

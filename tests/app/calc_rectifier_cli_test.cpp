@@ -1,0 +1,186 @@
+// `meterwright calc multiplier|indication|waveform` run as a separate process: JSON keys and
+// values against textbook examples and form factors, and bad input giving exit code 2.
+#include "support/approx.h"
+
+#include <catch2/catch.hpp>
+
+#include <QJsonDocument>
+#include <QJsonObject>
+#include <QProcess>
+#include <QStringList>
+
+#include <cmath>
+
+using mwtest::absolute;
+using mwtest::relative;
+
+namespace {
+
+struct Result {
+    int exitCode = -1;
+    QByteArray out;
+    QByteArray err;
+};
+
+Result runCalc(const QStringList& arguments) {
+    QProcess process;
+    process.start(QStringLiteral(MW_BINARY_DIR "/app/meterwright"),
+                  QStringList{QStringLiteral("calc")} + arguments);
+    REQUIRE(process.waitForFinished(30000));
+    REQUIRE(process.exitStatus() == QProcess::NormalExit);
+    return {process.exitCode(), process.readAllStandardOutput(), process.readAllStandardError()};
+}
+
+QJsonObject runJson(const QStringList& arguments) {
+    const Result result = runCalc(arguments + QStringList{QStringLiteral("--json")});
+    INFO("stderr: " << result.err.toStdString());
+    REQUIRE(result.exitCode == 0);
+    QJsonParseError error{};
+    const QJsonDocument document = QJsonDocument::fromJson(result.out, &error);
+    REQUIRE(error.error == QJsonParseError::NoError);
+    return document.object();
+}
+
+double number(const QJsonObject& json, const char* key) {
+    INFO("key " << key);
+    REQUIRE(json.value(QString::fromUtf8(key)).isDouble());
+    return json.value(QString::fromUtf8(key)).toDouble();
+}
+
+// Exit code 2 and exactly one line on stderr that contains `words`.
+void requireUsageError(const QStringList& arguments, const char* words) {
+    const Result result = runCalc(arguments);
+    INFO("arguments: " << arguments.join(QLatin1Char(' ')).toStdString());
+    INFO("stderr: " << result.err.toStdString());
+    CHECK(result.exitCode == 2);
+    CHECK(result.err.count('\n') == 1);
+    CHECK(result.err.contains(words));
+    CHECK(result.out.isEmpty());
+}
+
+QStringList args(std::initializer_list<const char*> words) {
+    QStringList list;
+    for (const char* word : words) {
+        list << QString::fromUtf8(word);
+    }
+    return list;
+}
+
+} // namespace
+
+TEST_CASE("calc multiplier: bridge with ideal diodes, Helfrick & Cooper Example 4-9") {
+    // Helfrick & Cooper Example 4-9: 1 mA, 50 Ω, 10 V rms; the book's 0.9 gives 8 950 Ω, the
+    // exact 2√2/π gives 8 953.2 Ω (check-values §10). E96 below it: 8.87 kΩ (IEC 60063 E96:
+    // 887 and 909 bracket 895). 10 V is below 30 V rms: no caution (IEC 61010-1 6.3.1).
+    const QJsonObject json = runJson(args({"multiplier", "--ifs", "1mA", "--rm", "50", "--range",
+                                           "10V", "--rectifier", "bridge", "--diode", "ideal"}));
+    CHECK(number(json, "multiplier_ohm") == absolute(8953.2, 0.05));
+    CHECK(number(json, "multiplier_ideal_ohm") == absolute(8953.2, 0.05));
+    // check-values §7: AC sensitivity 0.9003 × 1 000 Ω/V for a bridge.
+    CHECK(number(json, "sensitivity_ohm_per_volt") == relative(900.316, 1e-6));
+    CHECK(number(json, "nearest_standard_ohm") == relative(8870.0, 1e-12));
+    CHECK(number(json, "trim_ohm") == absolute(83.2, 0.05));
+    // Bridge: the multiplier carries the full sine, I_rms = 10 V / 9 003.2 Ω.
+    CHECK(number(json, "dissipation_w") ==
+          relative(10.0 / 9003.163 * 10.0 / 9003.163 * 8953.163, 1e-5));
+    CHECK(json.value(QStringLiteral("caution")).isNull());
+}
+
+TEST_CASE("calc multiplier: DC range of 100 V and its caution") {
+    // check-values §10: 100 V range, 1 mA, 100 Ω → 99.9 kΩ (classic textbook case); 100 V DC
+    // exceeds the 60 V DC limit of IEC 61010-1 6.3.1.
+    const QJsonObject json =
+        runJson(args({"multiplier", "--ifs", "1mA", "--rm", "100", "--range", "100V"}));
+    CHECK(number(json, "multiplier_ohm") == relative(99900.0, 1e-12));
+    CHECK(number(json, "sensitivity_ohm_per_volt") == relative(1000.0, 1e-12));
+    CHECK(number(json, "dissipation_w") == relative(1e-3 * 1e-3 * 99900.0, 1e-12));
+    REQUIRE(json.value(QStringLiteral("caution")).isString());
+    CHECK(json.value(QStringLiteral("caution")).toString().contains(QStringLiteral("61010")));
+}
+
+TEST_CASE("calc multiplier and indication agree: full scale at the range with real diodes") {
+    for (const char* rectifier : {"half", "bridge"}) {
+        for (const char* diode : {"silicon", "schottky", "germanium"}) {
+            INFO(rectifier << ", " << diode);
+            const QJsonObject design =
+                runJson(args({"multiplier", "--ifs", "1mA", "--rm", "1k", "--range", "10V",
+                              "--rectifier", rectifier, "--diode", diode, "--temp", "23C"}));
+            const double multiplier_ohms = number(design, "multiplier_ohm");
+            // Property: the diode drop costs multiplier resistance.
+            CHECK(multiplier_ohms < number(design, "multiplier_ideal_ohm"));
+            const QString rs = QString::number(multiplier_ohms, 'g', 17);
+            const QJsonObject at_range =
+                runJson(QStringList{QStringLiteral("indication"), QStringLiteral("--rs"), rs} +
+                        args({"--rectifier", rectifier, "--ifs", "1mA", "--rm", "1k", "--range",
+                              "10V", "--input", "10V", "--diode", diode, "--temp", "23C"}));
+            CHECK(number(at_range, "indicated") == relative(10.0, 1e-6));
+            CHECK(number(at_range, "movement_current_avg_a") == relative(1e-3, 1e-6));
+            CHECK(number(at_range, "error_percent_of_range") == absolute(0.0, 1e-4));
+            // Low on the scale the knee shows: the meter reads low (common practice).
+            const QJsonObject low =
+                runJson(QStringList{QStringLiteral("indication"), QStringLiteral("--rs"), rs} +
+                        args({"--rectifier", rectifier, "--ifs", "1mA", "--rm", "1k", "--range",
+                              "10V", "--input", "2.5V", "--diode", diode, "--frequency", "50Hz"}));
+            CHECK(number(low, "error_percent_of_range") < 0.0);
+        }
+    }
+}
+
+TEST_CASE("calc indication: ideal half-wave with shunt, Helfrick & Cooper Example 4-10") {
+    // Helfrick & Cooper Example 4-10: 1 mA, 100 Ω shunted by 100 Ω, 400 Ω diodes, 1 800 Ω;
+    // with the exact √2/π the movement passes 1.000351 mA at 10 V rms (check-values §10).
+    const QJsonObject json = runJson(args(
+        {"indication", "--rectifier", "half", "--ifs", "1mA", "--rm", "100", "--rsh", "100", "--rs",
+         "1800", "--range", "10V", "--input", "10V", "--diode", "ideal", "--diode-rf", "400"}));
+    CHECK(number(json, "movement_current_avg_a") == relative(1.000351e-3, 1e-6));
+    CHECK(number(json, "indicated") == relative(10.00351, 1e-6));
+    CHECK(number(json, "error_percent_of_range") == absolute(0.0351, 0.0001));
+    // A square wave of the same rms through the same ideal meter reads 11.07 % high
+    // (check-values §7).
+    const QJsonObject square =
+        runJson(args({"indication", "--rectifier", "bridge", "--ifs", "1mA", "--rm", "50", "--rs",
+                      "8953.1631615710606", "--range", "10V", "--input", "5V", "--waveform",
+                      "square", "--diode", "ideal"}));
+    CHECK(number(square, "indicated") == relative(5.0 * 1.110721, 1e-6));
+}
+
+TEST_CASE("calc waveform: form factors and average-responding readings") {
+    // check-values §7: triangle form factor 2/√3, reading 0.961912 (−3.81 %); square +11.07 %.
+    const QJsonObject triangle = runJson(args({"waveform", "--waveform", "triangle"}));
+    CHECK(number(triangle, "rms_v") == relative(1.0, 1e-12));
+    CHECK(number(triangle, "form_factor") == relative(1.154701, 1e-6));
+    CHECK(number(triangle, "reading_v") == relative(0.961912, 1e-6));
+    CHECK(number(triangle, "error_percent") == absolute(-3.81, 0.005));
+    const QJsonObject square = runJson(args({"waveform", "--waveform", "square", "--rms", "2V"}));
+    CHECK(number(square, "average_v") == relative(2.0, 1e-12));
+    CHECK(number(square, "error_percent") == absolute(11.07, 0.005));
+    // Sine with offset: rms² = c² + A²/2 (exact algebra).
+    const QJsonObject offset = runJson(args({"waveform", "--peak", "1V", "--offset", "0.5V"}));
+    CHECK(number(offset, "rms_v") == relative(std::sqrt(0.25 + 0.5), 1e-12));
+    CHECK(number(offset, "mean_v") == relative(0.5, 1e-12));
+}
+
+TEST_CASE("calc multiplier/indication/waveform: bad input gives exit code 2 and one line") {
+    requireUsageError(args({"indication", "--rectifier", "bridge", "--ifs", "1mA", "--rm", "1k",
+                            "--rs", "6k", "--range", "10V", "--input", "2.5A"}),
+                      "--input");
+    requireUsageError(
+        args({"multiplier", "--ifs", "1mA", "--rm", "1k", "--range", "10V", "--rectifier", "full"}),
+        "none|half|bridge");
+    requireUsageError(args({"indication", "--rectifier", "bridge", "--ifs", "1mA", "--rm", "1k",
+                            "--range", "10V", "--input", "2V"}),
+                      "--rs is required");
+    requireUsageError(args({"multiplier", "--ifs", "1mA", "--rm", "1k", "--range", "10V",
+                            "--rectifier", "half", "--diode", "ideal", "--diode-is", "1n"}),
+                      "--diode ideal");
+    requireUsageError(args({"multiplier", "--ifs", "1mA", "--rm", "1k", "--range", "1.2V",
+                            "--rectifier", "bridge"}),
+                      "too low for the diodes");
+    requireUsageError(args({"multiplier", "--ifs", "1mA", "--rm", "1k", "--range", "10V",
+                            "--rectifier", "bridge", "--diode-n", "0"}),
+                      "emission coefficient");
+    requireUsageError(args({"waveform", "--waveform", "square", "--offset", "1V"}), "--offset");
+    requireUsageError(args({"indication", "--ifs", "1mA", "--rm", "1k", "--rs", "6k", "--range",
+                            "10V", "--input", "2V"}),
+                      "--rectifier is required");
+}
