@@ -1,0 +1,70 @@
+// Class index series and fiducial values of IEC 60051 analog instruments.
+#include "core/accuracy/accuracy_class.h"
+
+#include <algorithm>
+#include <array>
+#include <cmath>
+#include <stdexcept>
+#include <string>
+
+namespace mw {
+namespace {
+
+// IEC 60051-2 class indices for ammeters and voltmeters (from memory; see the reference notes).
+constexpr std::array<double, 11> kClassIndices{0.05, 0.1, 0.2, 0.3, 0.5, 1.0,
+                                               1.5,  2.0, 2.5, 3.0, 5.0};
+
+} // namespace
+
+std::span<const double> classIndexSeries() {
+    return kClassIndices;
+}
+
+bool isStandardClassIndex(double classIndex) {
+    for (double index : kClassIndices) {
+        if (std::fabs(index - classIndex) <= 1e-9 * index) {
+            return true;
+        }
+    }
+    return false;
+}
+
+double fiducialValue(const ScaleRange& range) {
+    if (!std::isfinite(range.lower) || !std::isfinite(range.upper) ||
+        !(range.upper > range.lower)) {
+        throw std::invalid_argument("scale range: the upper limit must be greater than the lower");
+    }
+    if (range.fiducialOverride) {
+        if (!(*range.fiducialOverride > 0.0) || !std::isfinite(*range.fiducialOverride)) {
+            throw std::invalid_argument("scale range: the fiducial value must be > 0");
+        }
+        return *range.fiducialOverride;
+    }
+    switch (range.type) {
+    case ScaleType::ZeroAtEnd:
+        // The zero may sit at either end (e.g. -10 … 0 V): the limit farther from it.
+        return std::max(std::fabs(range.lower), std::fabs(range.upper));
+    case ScaleType::ZeroInside:
+        if (!(range.lower < 0.0 && range.upper > 0.0)) {
+            throw std::invalid_argument("scale range: a zero-inside scale needs a negative "
+                                        "lower and a positive upper limit");
+        }
+        return std::fabs(range.lower) + std::fabs(range.upper);
+    case ScaleType::NoZero:
+        return std::max(std::fabs(range.lower), std::fabs(range.upper));
+    case ScaleType::NonLinear:
+        throw std::invalid_argument("scale range: a non-linear scale needs its fiducial value "
+                                    "(the scale length) given explicitly");
+    }
+    throw std::invalid_argument("scale range: unknown scale type");
+}
+
+double permissibleError(double classIndex, double fiducial) {
+    if (!(classIndex > 0.0) || !std::isfinite(classIndex)) {
+        throw std::invalid_argument("accuracy class: the class index must be > 0, got " +
+                                    std::to_string(classIndex));
+    }
+    return classIndex / 100.0 * fiducial;
+}
+
+} // namespace mw

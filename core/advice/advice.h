@@ -1,0 +1,75 @@
+// Adjustment advice from as-found errors: least-squares zero + span fit, residual
+// non-linearity, hysteresis, the likely cause in plain words, and the multiplier or shunt value
+// that would null a span error.
+#pragma once
+
+#include "core/model/vocabulary.h"
+
+#include <optional>
+#include <string>
+#include <vector>
+
+namespace mw {
+
+// Errors of indication at one test point (indicated − applied), by direction where known.
+struct PointErrors {
+    double applied = 0.0;
+    std::optional<double> errorUp;
+    std::optional<double> errorDown;
+};
+
+// indicated = zeroOffset + spanFactor · applied, fitted by least squares to the mean error of
+// each point (the mean of up and down, so that hysteresis does not bend the fit).
+struct ZeroSpanFit {
+    double zeroOffset = 0.0;       // error at zero applied, in the unit of the range
+    double spanFactor = 1.0;       // 1 for a correct span; 1.01 reads 1 % high
+    std::vector<double> residuals; // mean error − fitted error, per point
+    double nonlinearity = 0.0;     // largest |residual|
+};
+
+// Throws std::invalid_argument with fewer than two distinct applied values.
+ZeroSpanFit fitZeroSpan(const std::vector<PointErrors>& points);
+
+// Largest |down − up| over the points that have both directions (0 when none has).
+double maxHysteresis(const std::vector<PointErrors>& points);
+
+enum class LikelyCause {
+    None,                  // nothing above a fifth of the permissible error
+    Zero,                  // mechanical zero
+    Span,                  // multiplier / shunt value or movement sensitivity
+    RectifierNonlinearity, // diode forward drop at the low end of a rectifier scale
+    ScaleNonlinearity,     // scale or movement not uniform
+    Friction,              // hysteresis: pivots, jewels, pointer fouling
+};
+
+std::string_view toText(LikelyCause cause); // stable word: "none", "zero", "span", ...
+
+struct AdviceInput {
+    InstrumentKind kind = InstrumentKind::DcVoltmeter;
+    double upperLimit = 0.0;       // of the range, to size the span effect at full scale
+    double permissibleError = 0.0; // ± limit at every point, for judging what is significant
+    std::vector<PointErrors> points;
+    // Error the circuit model predicts for this meter at each point (same order), e.g. the
+    // diode-drop curve of a rectifier instrument; used to recognise that shape.
+    std::optional<std::vector<double>> predictedErrors;
+};
+
+struct Advice {
+    ZeroSpanFit fit;
+    double hysteresis = 0.0;
+    double zeroEffect = 0.0; // |zero offset|
+    double spanEffect = 0.0; // |span factor − 1| · upper limit
+    LikelyCause cause = LikelyCause::None;
+    std::vector<LikelyCause> alsoSignificant; // other effects above the threshold
+    std::string explanation;                  // plain words for the technician
+};
+
+// Effects at or above this fraction of the permissible error are called significant.
+inline constexpr double kSignificantFractionOfLimit = 0.2;
+
+Advice adviseAdjustment(const AdviceInput& input);
+
+// Plain-words explanation of one cause.
+std::string describeCause(LikelyCause cause, InstrumentKind kind);
+
+} // namespace mw

@@ -1,0 +1,61 @@
+// Corrected multiplier and shunt values, trims and resistor deviations.
+#include "core/advice/resistor_correction.h"
+
+#include <cmath>
+#include <stdexcept>
+#include <string>
+
+namespace mw {
+namespace {
+
+void requirePositive(double value, const char* what) {
+    if (!(value > 0.0) || !std::isfinite(value)) {
+        throw std::invalid_argument(std::string(what) + " must be a finite value > 0, got " +
+                                    std::to_string(value));
+    }
+}
+
+} // namespace
+
+double correctedMultiplierOhms(double multiplierOhms, double movementOhms, double spanFactor) {
+    requirePositive(multiplierOhms, "multiplier resistance");
+    requirePositive(movementOhms, "movement resistance");
+    requirePositive(spanFactor, "span factor");
+    const double corrected = spanFactor * (multiplierOhms + movementOhms) - movementOhms;
+    if (!(corrected > 0.0)) {
+        throw std::invalid_argument("no multiplier value can null a span factor of " +
+                                    std::to_string(spanFactor));
+    }
+    return corrected;
+}
+
+double correctedShuntOhms(double shuntOhms, double movementOhms, double spanFactor) {
+    requirePositive(shuntOhms, "shunt resistance");
+    requirePositive(movementOhms, "movement resistance");
+    requirePositive(spanFactor, "span factor");
+    const double fraction = shuntOhms / (shuntOhms + movementOhms) / spanFactor;
+    if (!(fraction < 1.0)) {
+        throw std::invalid_argument("no shunt value can null a span factor of " +
+                                    std::to_string(spanFactor) +
+                                    ": the movement would need more than the whole current");
+    }
+    return movementOhms * fraction / (1.0 - fraction);
+}
+
+ResistorDeviation compareResistor(double computedOhms, double measuredOhms,
+                                  double tolerancePercent) {
+    requirePositive(computedOhms, "computed resistance");
+    if (!(measuredOhms >= 0.0) || !std::isfinite(measuredOhms)) {
+        throw std::invalid_argument("measured resistance must be finite and >= 0");
+    }
+    if (!(tolerancePercent >= 0.0)) {
+        throw std::invalid_argument("resistor tolerance must be >= 0 %");
+    }
+    ResistorDeviation result;
+    result.deviationPercent = (measuredOhms - computedOhms) / computedOhms * 100.0;
+    // A hair of slack so that a resistor exactly on its tolerance is not failed by rounding.
+    result.withinTolerance = std::fabs(result.deviationPercent) <= tolerancePercent * (1 + 1e-12);
+    return result;
+}
+
+} // namespace mw

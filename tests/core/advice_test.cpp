@@ -1,0 +1,109 @@
+// Zero + span fit and the likely cause, on synthetic errors with known zero, span,
+// non-linearity and hysteresis (invented demo data; the fit is ordinary least squares).
+#include "core/advice/advice.h"
+
+#include "support/approx.h"
+
+#include <catch2/catch.hpp>
+
+#include <cmath>
+#include <stdexcept>
+
+using namespace mw;
+
+namespace {
+
+// Errors of a 0-10 range: zero z, span s, hysteresis h (down − up), plus an extra error.
+std::vector<PointErrors> synthetic(double z, double s, double h, double (*extra)(double)) {
+    std::vector<PointErrors> points;
+    for (const double a : {1.0, 2.0, 4.0, 6.0, 8.0, 10.0}) {
+        const double e = z + (s - 1.0) * a + extra(a);
+        points.push_back({a, e - h / 2.0, e + h / 2.0});
+    }
+    return points;
+}
+
+double none(double) {
+    return 0.0;
+}
+
+AdviceInput adviceFor(InstrumentKind kind, std::vector<PointErrors> points) {
+    AdviceInput input;
+    input.kind = kind;
+    input.upperLimit = 10.0;
+    input.permissibleError = 0.15; // class 1.5 on 10 V
+    input.points = std::move(points);
+    return input;
+}
+
+} // namespace
+
+TEST_CASE("the fit recovers a known zero and span exactly") {
+    const ZeroSpanFit fit = fitZeroSpan(synthetic(-0.03, 0.995, 0.0, none));
+    CHECK(fit.zeroOffset == mwtest::absolute(-0.03, 1e-12));
+    CHECK(fit.spanFactor == mwtest::relative(0.995, 1e-12));
+    CHECK(fit.nonlinearity == mwtest::absolute(0.0, 1e-12));
+    CHECK(maxHysteresis(synthetic(0.0, 1.0, 0.04, none)) == mwtest::absolute(0.04, 1e-12));
+}
+
+TEST_CASE("each dominant effect is named") {
+    const Advice zero =
+        adviseAdjustment(adviceFor(InstrumentKind::DcVoltmeter, synthetic(0.08, 1.0, 0.0, none)));
+    CHECK(zero.cause == LikelyCause::Zero);
+    CHECK_THAT(zero.explanation, Catch::Contains("mechanical zero"));
+
+    const Advice span =
+        adviseAdjustment(adviceFor(InstrumentKind::DcAmmeter, synthetic(0.0, 0.99, 0.0, none)));
+    CHECK(span.cause == LikelyCause::Span);
+    CHECK(span.spanEffect == mwtest::absolute(0.1, 1e-12));
+    CHECK_THAT(span.explanation, Catch::Contains("shunt"));
+
+    const Advice friction =
+        adviseAdjustment(adviceFor(InstrumentKind::DcVoltmeter, synthetic(0.0, 1.0, 0.06, none)));
+    CHECK(friction.cause == LikelyCause::Friction);
+    CHECK_THAT(friction.explanation, Catch::Contains("pivots"));
+
+    const Advice fine = adviseAdjustment(
+        adviceFor(InstrumentKind::DcVoltmeter, synthetic(0.01, 1.001, 0.01, none)));
+    CHECK(fine.cause == LikelyCause::None);
+    CHECK(fine.alsoSignificant.empty());
+}
+
+TEST_CASE("non-linearity at the low end of a rectifier scale points at the diode") {
+    // Shape only: a rectifier reads low at small signals (forward drop), common practice.
+    auto diode = [](double a) {
+        return -0.2 / a;
+    };
+    const Advice rect = adviseAdjustment(
+        adviceFor(InstrumentKind::BridgeAcVoltmeter, synthetic(0.0, 1.0, 0.0, diode)));
+    CHECK(rect.cause == LikelyCause::RectifierNonlinearity);
+    CHECK_THAT(rect.explanation, Catch::Contains("rectifier"));
+    // The same shape on a DC meter is the scale or the movement.
+    const Advice dc =
+        adviseAdjustment(adviceFor(InstrumentKind::DcVoltmeter, synthetic(0.0, 1.0, 0.0, diode)));
+    CHECK(dc.cause == LikelyCause::ScaleNonlinearity);
+}
+
+TEST_CASE("a predicted rectifier curve is compared with the residuals") {
+    auto bump = [](double a) {
+        return 0.15 * std::sin(a / 10.0 * 3.14159);
+    };
+    AdviceInput input =
+        adviceFor(InstrumentKind::HalfWaveAcVoltmeter, synthetic(0.0, 1.0, 0.0, bump));
+    std::vector<double> predicted;
+    for (const PointErrors& p : input.points) {
+        predicted.push_back(bump(p.applied) * 0.8); // same shape, other size
+    }
+    input.predictedErrors = predicted;
+    CHECK(adviseAdjustment(input).cause == LikelyCause::RectifierNonlinearity);
+    for (double& value : *input.predictedErrors) {
+        value = -value; // opposite shape
+    }
+    CHECK(adviseAdjustment(input).cause == LikelyCause::ScaleNonlinearity);
+}
+
+TEST_CASE("a fit needs two distinct applied values") {
+    CHECK_THROWS_AS(fitZeroSpan({{5.0, 0.1, 0.2}}), std::invalid_argument);
+    CHECK_THROWS_AS(fitZeroSpan({{5.0, 0.1, {}}, {5.0, 0.2, {}}}), std::invalid_argument);
+    CHECK_THROWS_WITH(fitZeroSpan({{5.0, {}, {}}, {6.0, 0.2, {}}}), Catch::Contains("no reading"));
+}

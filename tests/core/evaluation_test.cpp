@@ -1,0 +1,175 @@
+// Evaluation of one range from readings of a synthetic meter with known zero, span and
+// hysteresis (demo data), checked against hand calculation by the cited rules.
+#include "core/evaluation/evaluation.h"
+
+#include "support/approx.h"
+
+#include <catch2/catch.hpp>
+
+#include <cmath>
+#include <limits>
+#include <stdexcept>
+
+using namespace mw;
+
+namespace {
+
+// A 0-10 V class 1.5 voltmeter (limit ±0.15 V) with zero offset +0.05 V, span 1.01 and
+// hysteresis 0.02 V (down reads 0.01 V above the mean, up 0.01 V below). Invented demo data.
+EvaluationInput syntheticMeter() {
+    EvaluationInput input;
+    input.range = {0.0, 10.0, ScaleType::ZeroAtEnd, {}};
+    input.classIndex = 1.5;
+    input.divisions = 50;
+    input.readabilityFraction = 0.2;
+    input.reference = parseReferenceSpec("0.02%rdg+0.01%rng", Unit::Volt);
+    for (const double applied : {0.0, 2.0, 4.0, 6.0, 8.0, 10.0}) {
+        const double mean = 0.05 + 1.01 * applied;
+        input.readings.push_back({applied, mean - 0.01, Direction::Up, 1, -1});
+        input.readings.push_back({applied, mean + 0.01, Direction::Down, 1, -1});
+    }
+    return input;
+}
+
+} // namespace
+
+TEST_CASE("errors per point in units, % of reading and % of fiducial value") {
+    const EvaluationResult result = evaluateRange(syntheticMeter());
+    CHECK(result.fiducialValue == 10.0);                             // IEC 60051-1: upper limit
+    CHECK(result.permissibleError == mwtest::relative(0.15, 1e-12)); // 1.5 % of 10 V
+    REQUIRE(result.points.size() == 6);
+    const PointResult& top = result.points[5];
+    CHECK(top.applied == 10.0);
+    CHECK(*top.errorUp == mwtest::absolute(0.14, 1e-12));
+    CHECK(*top.errorDown == mwtest::absolute(0.16, 1e-12));
+    CHECK(*top.hysteresis == mwtest::absolute(0.02, 1e-12));
+    CHECK(top.error == mwtest::absolute(0.16, 1e-12)); // the worse direction decides
+    CHECK(top.indicated == mwtest::absolute(10.16, 1e-12));
+    CHECK(*top.errorPercentOfReading == mwtest::absolute(1.6, 1e-10));
+    CHECK(top.errorPercentOfFiducial == mwtest::absolute(1.6, 1e-10));
+    CHECK_FALSE(result.points[0].errorPercentOfReading.has_value()); // zero applied
+    CHECK(result.worstPoint == 5);
+    CHECK_FALSE(top.repeatability.has_value());
+}
+
+TEST_CASE("per-point budget: reference spec and readability") {
+    // Reference ±(0.02 % rdg + 0.01 % rng) at 10 V = 3 mV rectangular; readability 1/5 of a
+    // 0.2 V division -> half-width 0.02 V rectangular (JCGM 100:2008 4.3.7); k = 2 for ν = ∞
+    // (Table G.2); U to two digits (7.2.6): 2·√(0.02² + 0.003²)/√3 = 0.02335 -> 0.023 V.
+    const PointResult top = evaluateRange(syntheticMeter()).points[5];
+    REQUIRE(top.components.size() == 2);
+    const double uc = std::sqrt(0.02 * 0.02 + 0.003 * 0.003) / std::sqrt(3.0);
+    CHECK(top.budget.combined == mwtest::relative(uc, 1e-12));
+    CHECK(std::isinf(top.budget.dofEffective));
+    CHECK(top.budget.coverageFactor == mwtest::relative(2.0, 1e-9));
+    CHECK(top.budget.expandedRounded == mwtest::relative(0.023, 1e-12));
+    // ANSI/NCSL Z540.3 Handbook: TUR = 0.30 V / (2 × 0.023 V).
+    CHECK(top.tur == mwtest::relative(0.15 / 0.023, 1e-12));
+    CHECK_FALSE(top.turBelowMinimum);
+}
+
+TEST_CASE("simple acceptance: the top point fails and so does the range") {
+    // ILAC G8:09/2019 4.2.1: 0.16 V > 0.15 V fails; 0.14 V at 8 V passes.
+    const EvaluationResult result = evaluateRange(syntheticMeter());
+    CHECK(result.points[4].decision == Outcome::Pass);
+    CHECK(result.points[5].decision == Outcome::Fail);
+    CHECK(result.overall == Outcome::Fail);
+    // JCGM 106:2012: the top point's error lies 0.01 V beyond the limit -> p(out) > 50 %.
+    CHECK(result.points[5].probabilityOfFalseAccept > 0.5);
+    CHECK(result.points[0].probabilityOfFalseAccept < 1e-6);
+}
+
+TEST_CASE("guarded acceptance with w = U gives conditional outcomes near the limit") {
+    // ILAC G8:09/2019 4.2.3 with w = U = 0.023 V: 0.14 V at 8 V lies within U below the limit
+    // (conditional pass); 0.16 V lies within U above it (conditional fail).
+    EvaluationInput input = syntheticMeter();
+    input.decision = {DecisionRule::GuardedAcceptance, 1.0};
+    const EvaluationResult result = evaluateRange(input);
+    CHECK(result.points[0].decision == Outcome::Pass);
+    CHECK(result.points[4].decision == Outcome::ConditionalPass);
+    CHECK(result.points[5].decision == Outcome::ConditionalFail);
+    CHECK(result.overall == Outcome::ConditionalFail);
+    CHECK_THAT(result.statement,
+               Catch::Contains("ILAC G8:09/2019 4.2.3") && Catch::Contains("conditional fail"));
+}
+
+TEST_CASE("advice finds the known zero, span and hysteresis and the multiplier to fit") {
+    EvaluationInput input = syntheticMeter();
+    // 1 mA movement of 100 Ω with a 9.9 kΩ multiplier on 10 V (Helfrick & Cooper formula
+    // R_s = V/I_fs − R_m); span 1.01 needs R_total × 1.01 = 10.1 kΩ -> R_s = 10.0 kΩ.
+    input.resistor = RangeResistor{9900.0, 100.0, false, 9900.0, 1.0, ESeries::E96};
+    const EvaluationResult result = evaluateRange(input);
+    REQUIRE(result.advice);
+    CHECK(result.advice->fit.zeroOffset == mwtest::absolute(0.05, 1e-12));
+    CHECK(result.advice->fit.spanFactor == mwtest::relative(1.01, 1e-12));
+    CHECK(result.advice->fit.nonlinearity == mwtest::absolute(0.0, 1e-12));
+    CHECK(result.advice->hysteresis == mwtest::absolute(0.02, 1e-12));
+    CHECK(result.advice->cause == LikelyCause::Span);
+    REQUIRE(result.correctedResistorOhms);
+    CHECK(*result.correctedResistorOhms == mwtest::relative(10000.0, 1e-9));
+    REQUIRE(result.correctedChoice);
+    CHECK(result.correctedChoice->ohms_standard == mwtest::relative(10000.0, 1e-12)); // E96 100
+    REQUIRE(result.resistorDeviation);
+    CHECK(result.resistorDeviation->deviationPercent == mwtest::absolute(0.0, 1e-12));
+}
+
+TEST_CASE("repeats give a Type A component and finite effective dof") {
+    // JCGM 100:2008 4.2: three repeats 5.02, 5.04, 5.03 V -> s = 0.01 V, u = 0.01/√3, ν = 2.
+    EvaluationInput input;
+    input.range = {0.0, 10.0, ScaleType::ZeroAtEnd, {}};
+    input.classIndex = 1.0;
+    for (const double indicated : {5.02, 5.04, 5.03}) {
+        input.readings.push_back({5.0, indicated, Direction::Up, 1, -1});
+    }
+    const EvaluationResult result = evaluateRange(input);
+    REQUIRE(result.points.size() == 1);
+    const PointResult& point = result.points[0];
+    CHECK(point.readingCount == 3);
+    CHECK(*point.repeatability == mwtest::relative(0.01, 1e-9));
+    CHECK(point.error == mwtest::absolute(0.03, 1e-12));
+    CHECK(point.budget.dofEffective == mwtest::relative(2.0, 1e-9));
+    // Table G.2: t_95.45(2) = 4.53.
+    CHECK(point.budget.coverageFactor == mwtest::absolute(4.53, 0.005));
+    CHECK_FALSE(result.advice.has_value()); // one point: no fit
+}
+
+TEST_CASE("readings are grouped by point index when one is given") {
+    EvaluationInput input;
+    input.range = {0.0, 10.0, ScaleType::ZeroAtEnd, {}};
+    input.classIndex = 1.5;
+    input.readings = {{4.98, 5.0, Direction::Up, 1, 2}, {5.02, 5.0, Direction::Down, 1, 2}};
+    const EvaluationResult result = evaluateRange(input);
+    REQUIRE(result.points.size() == 1);
+    CHECK(result.points[0].applied == mwtest::relative(5.0, 1e-12));
+    CHECK(std::fabs(result.points[0].error) == mwtest::absolute(0.02, 1e-12));
+}
+
+TEST_CASE("bad input names what is wrong") {
+    EvaluationInput input = syntheticMeter();
+    input.readings.clear();
+    CHECK_THROWS_WITH(evaluateRange(input), Catch::Contains("no readings"));
+    input = syntheticMeter();
+    input.readings[1].indicated = std::numeric_limits<double>::quiet_NaN();
+    CHECK_THROWS_WITH(evaluateRange(input), Catch::Contains("reading 2"));
+    input = syntheticMeter();
+    input.classIndex = -1.0;
+    CHECK_THROWS_WITH(evaluateRange(input), Catch::Contains("class index"));
+}
+
+TEST_CASE("a warm room adds the coil model's temperature effect") {
+    // Swamped movement: 5 Ω copper coil (IEC 60028, α20 = 0.00393 /K) with
+    // 15 Ω manganin (α ≈ 0); room 28 °C against the 23 °C reference (IEC 60051-1). Current
+    // falls by R(23)/R(28): (15 + 5(1 + 0.00393·3)) / (15 + 5(1 + 0.00393·8)) − 1.
+    EvaluationInput input = syntheticMeter();
+    TemperatureInfluence warm;
+    warm.roomCelsius = 28.0;
+    warm.coil = CoilCircuit{5.0, TempcoResistor{15.0, 0.0}, std::nullopt};
+    input.temperature = warm;
+    const PointResult top = evaluateRange(input).points[5];
+    REQUIRE(top.components.size() == 3);
+    const double shift = (15.0 + 5.0 * (1 + 0.00393 * 3)) / (15.0 + 5.0 * (1 + 0.00393 * 8)) - 1;
+    CHECK(top.components[2].name == "temperature effect");
+    CHECK(top.components[2].value == mwtest::relative(10.0 * std::fabs(shift), 1e-9));
+    // About ¼ of copper's 0.393 %/K over 5 K (computed: α_eff = 0.000983 /K).
+    CHECK(top.components[2].value == mwtest::relative(10.0 * 0.000983 * 5.0, 0.01));
+}
