@@ -75,7 +75,8 @@ TEST_CASE("calc shunt gives the shunt of Helfrick & Cooper Example 4-1") {
 
 TEST_CASE("calc ayrton gives the taps of Helfrick & Cooper Example 4-2, by topology") {
     // Helfrick & Cooper Example 4-2: 1 mA, 50 Ω, ranges 1/5/10 A -> 0.005005 Ω alone on 10 A,
-    // 0.005005 Ω added for 5 A, 0.04004 Ω added for 1 A (check-values §10).
+    // 0.005005 Ω added for 5 A, 0.04004 Ω added for 1 A (Helfrick & Cooper, Modern Electronic
+    // Instrumentation and Measurement Techniques, Example 4-2, p. 57).
     const QJsonObject json =
         runJson(args({"ayrton", "--ifs", "1mA", "--rm", "50", "--ranges", "10A,1A,5A"}));
     const QJsonArray ranges = json.value(QStringLiteral("ranges_a")).toArray();
@@ -98,12 +99,13 @@ TEST_CASE("calc ayrton gives the taps of Helfrick & Cooper Example 4-2, by topol
 TEST_CASE("calc temperature gives the IEC 60028 coil resistance and the span error") {
     // IEC 60028 copper, α20 = 0.00393 /K: 100 Ω at 20 °C is 103.93 Ω at 30 °C.
     // Helfrick & Cooper Example 4-3 10 V range (9.9 kΩ multiplier): span error ≈ -α·ΔT·R_m/R_v
-    // (swamping rule, check-values §8).
+    // (swamping rule, derived from the IEC 60028 law for annealed copper, α20 = 0.00393 /K).
     const QJsonObject json = runJson(
         args({"temperature", "--rm", "100", "--temp", "30C", "--ref", "20 °C", "--series", "9k9"}));
     CHECK(json.value(QStringLiteral("coil_ohm_at_temp")).toDouble() == relative(103.93, 1e-9));
     CHECK(json.value(QStringLiteral("span_error_percent")).toDouble() == relative(-0.0393, 1e-3));
-    // Coil measured at 23 °C: referred to 20 °C by the same law (check-values §8: 1.01179).
+    // Coil measured at 23 °C: referred to 20 °C by the same law (IEC 60028 annealed copper,
+    // α20 = 0.00393 /K: R(23 °C)/R(20 °C) = 1.01179, computed).
     const QJsonObject measured =
         runJson(args({"temperature", "--rm", "101.179", "--rm-at", "296.15K", "--temp", "20C"}));
     CHECK(measured.value(QStringLiteral("coil_ohm_20c")).toDouble() == relative(100.0, 1e-5));
@@ -111,7 +113,8 @@ TEST_CASE("calc temperature gives the IEC 60028 coil resistance and the span err
 
 TEST_CASE("calc temperature designs a swamping resistor for a target") {
     // Zero-tempco swamp for a 5 Ω coil within 1 % from 20 to 30 °C: closed form
-    // (R(30) - R(20)) / 0.01 - R(30), derived from the swamping rule (check-values §8).
+    // (R(30) - R(20)) / 0.01 - R(30), derived from the swamping rule with IEC 60028 copper
+    // (α20 = 0.00393 /K).
     const QJsonObject json = runJson(args({"temperature", "--rm", "5", "--ref", "20C", "--from",
                                            "20C", "--to", "30C", "--target", "1%"}));
     const double hot = 5.0 * 1.0393;

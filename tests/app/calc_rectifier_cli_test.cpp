@@ -69,14 +69,16 @@ QStringList args(std::initializer_list<const char*> words) {
 } // namespace
 
 TEST_CASE("calc multiplier: bridge with ideal diodes, Helfrick & Cooper Example 4-9") {
-    // Helfrick & Cooper Example 4-9: 1 mA, 50 Ω, 10 V rms; the book's 0.9 gives 8 950 Ω, the
-    // exact 2√2/π gives 8 953.2 Ω (check-values §10). E96 below it: 8.87 kΩ (IEC 60063 E96:
-    // 887 and 909 bracket 895). 10 V is below 30 V rms: no caution (IEC 61010-1 6.3.1).
+    // Helfrick & Cooper, Modern Electronic Instrumentation and Measurement Techniques,
+    // Example 4-9 (p. 79): 1 mA, 50 Ω, 10 V rms; the book's 0.9 gives 8 950 Ω, the exact
+    // 2√2/π gives 8 953.2 Ω (computed from the exact formula). E96 below it: 8.87 kΩ
+    // (IEC 60063 E96: 887 and 909 bracket 895). 10 V is below 30 V rms: no caution
+    // (IEC 61010-1 6.3.1).
     const QJsonObject json = runJson(args({"multiplier", "--ifs", "1mA", "--rm", "50", "--range",
                                            "10V", "--rectifier", "bridge", "--diode", "ideal"}));
     CHECK(number(json, "multiplier_ohm") == absolute(8953.2, 0.05));
     CHECK(number(json, "multiplier_ideal_ohm") == absolute(8953.2, 0.05));
-    // check-values §7: AC sensitivity 0.9003 × 1 000 Ω/V for a bridge.
+    // AC sensitivity 2√2/π = 0.9003 × 1 000 Ω/V for a bridge (exact form, computed).
     CHECK(number(json, "sensitivity_ohm_per_volt") == relative(900.316, 1e-6));
     CHECK(number(json, "nearest_standard_ohm") == relative(8870.0, 1e-12));
     CHECK(number(json, "trim_ohm") == absolute(83.2, 0.05));
@@ -87,8 +89,9 @@ TEST_CASE("calc multiplier: bridge with ideal diodes, Helfrick & Cooper Example 
 }
 
 TEST_CASE("calc multiplier: DC range of 100 V and its caution") {
-    // check-values §10: 100 V range, 1 mA, 100 Ω → 99.9 kΩ (classic textbook case); 100 V DC
-    // exceeds the 60 V DC limit of IEC 61010-1 6.3.1.
+    // R_s = V/I_fs − R_m: 100 V range, 1 mA, 100 Ω → 99.9 kΩ (classic textbook case, from
+    // memory; no printed source checked); 100 V DC exceeds the 60 V DC limit of
+    // IEC 61010-1 6.3.1.
     const QJsonObject json =
         runJson(args({"multiplier", "--ifs", "1mA", "--rm", "100", "--range", "100V"}));
     CHECK(number(json, "multiplier_ohm") == relative(99900.0, 1e-12));
@@ -128,7 +131,8 @@ TEST_CASE("calc multiplier and indication agree: full scale at the range with re
 
 TEST_CASE("calc indication: ideal half-wave with shunt, Helfrick & Cooper Example 4-10") {
     // Helfrick & Cooper Example 4-10: 1 mA, 100 Ω shunted by 100 Ω, 400 Ω diodes, 1 800 Ω;
-    // with the exact √2/π the movement passes 1.000351 mA at 10 V rms (check-values §10).
+    // with the exact √2/π the movement passes 1.000351 mA at 10 V rms (computed from the exact
+    // formula).
     const QJsonObject json = runJson(args(
         {"indication", "--rectifier", "half", "--ifs", "1mA", "--rm", "100", "--rsh", "100", "--rs",
          "1800", "--range", "10V", "--input", "10V", "--diode", "ideal", "--diode-rf", "400"}));
@@ -136,7 +140,7 @@ TEST_CASE("calc indication: ideal half-wave with shunt, Helfrick & Cooper Exampl
     CHECK(number(json, "indicated") == relative(10.00351, 1e-6));
     CHECK(number(json, "error_percent_of_range") == absolute(0.0351, 0.0001));
     // A square wave of the same rms through the same ideal meter reads 11.07 % high
-    // (check-values §7).
+    // (exact form factor π/(2√2), computed; instrument manuals' waveform tables give +11 %).
     const QJsonObject square =
         runJson(args({"indication", "--rectifier", "bridge", "--ifs", "1mA", "--rm", "50", "--rs",
                       "8953.1631615710606", "--range", "10V", "--input", "5V", "--waveform",
@@ -145,7 +149,8 @@ TEST_CASE("calc indication: ideal half-wave with shunt, Helfrick & Cooper Exampl
 }
 
 TEST_CASE("calc waveform: form factors and average-responding readings") {
-    // check-values §7: triangle form factor 2/√3, reading 0.961912 (−3.81 %); square +11.07 %.
+    // Exact forms, computed: triangle form factor 2/√3, reading 0.961912 (−3.81 %); square
+    // +11.07 % (instrument manuals' waveform tables print 0.96 and +11 %).
     const QJsonObject triangle = runJson(args({"waveform", "--waveform", "triangle"}));
     CHECK(number(triangle, "rms_v") == relative(1.0, 1e-12));
     CHECK(number(triangle, "form_factor") == relative(1.154701, 1e-6));

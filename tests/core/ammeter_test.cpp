@@ -25,7 +25,7 @@ TEST_CASE("a range not above I_fs is refused") {
 
 TEST_CASE("Ayrton shunt of Helfrick & Cooper Example 4-2, by topology") {
     // Helfrick & Cooper Example 4-2 (p. 57): I_fs = 1 mA, R_m = 50 Ω, ranges 1 A, 5 A, 10 A.
-    // Book: total 0.05005 Ω split 0.005005 / 0.005005 / 0.04004 Ω (check-values §10 note:
+    // Book: total 0.05005 Ω split 0.005005 / 0.005005 / 0.04004 Ω (read by topology:
     // the section used alone on 10 A, the one added for 5 A, the one added for 1 A).
     const Movement m{1e-3, 50.0};
     const std::vector<double> ranges{10.0, 1.0, 5.0}; // any order

@@ -13,8 +13,8 @@ using mwtest::absolute;
 using mwtest::relative;
 
 TEST_CASE("copper resistance follows IEC 60028") {
-    // IEC 60028: α20 = 0.00393 /K for standard annealed copper; ratios computed in
-    // check-values §8.
+    // IEC 60028: α20 = 0.00393 /K for standard annealed copper; ratios computed from
+    // R(t) = R20·(1 + α20·(t − 20)).
     CHECK(kCopperAlpha20_per_K == 0.00393);
     CHECK(copperResistance_ohm(1.0, 23.0) == relative(1.01179, 1e-6));
     CHECK(copperResistance_ohm(1.0, 25.0) == relative(1.01965, 1e-6));
@@ -28,16 +28,18 @@ TEST_CASE("copper resistance follows IEC 60028") {
 }
 
 TEST_CASE("swamping lowers the effective tempco in proportion to the copper share") {
-    // check-values §8 swamping test vector: 5 Ω copper + 15 Ω manganin -> 0.000983 /K.
+    // Swamping rule (derived from IEC 60028's α20), computed: 5 Ω copper + 15 Ω manganin ->
+    // 0.000983 /K.
     CHECK(effectiveTempco_per_K(5.0, 15.0) == relative(0.00098250, 1e-6));
     CHECK(effectiveTempco_per_K(5.0, 0.0) == relative(0.00393, 1e-12));
-    // Manganin's own coefficient adds in proportion (order 1e-5 /K, check-values §8).
+    // Manganin's own coefficient adds in proportion (order 1e-5 /K, handbook tables of resistance
+    // alloys).
     CHECK(effectiveTempco_per_K(5.0, 15.0, 15e-6) == relative(0.00098250 + 0.75 * 15e-6, 1e-6));
 }
 
 TEST_CASE("span error of a voltmeter follows the swamping rule") {
     // Helfrick & Cooper Example 4-3 10 V range: 100 Ω copper coil + 9.9 kΩ multiplier.
-    // First-order swamping rule (check-values §8): error ≈ -α_eff·ΔT, α_eff = α·R_m/R_total.
+    // First-order swamping rule (common practice): error ≈ -α_eff·ΔT, α_eff = α·R_m/R_total.
     CoilCircuit voltmeter;
     voltmeter.ohms_coil_20C = 100.0;
     voltmeter.series = {9900.0, 0.0};
@@ -53,7 +55,7 @@ TEST_CASE("span error of a voltmeter follows the swamping rule") {
 TEST_CASE("span error of a shunted ammeter") {
     // Helfrick & Cooper Example 4-1 ammeter (1 mA, 100 Ω, 100 mA range, shunt 1.0101 Ω,
     // manganin α ≈ 0): the movement current falls as the coil warms, about -α per kelvin
-    // because the shunt is a hundredth of the coil (swamping rule, check-values §8).
+    // because the shunt is a hundredth of the coil (swamping rule, common practice).
     CoilCircuit ammeter;
     ammeter.ohms_coil_20C = 100.0;
     ammeter.shunt = TempcoResistor{1.0101, 0.0};
@@ -62,7 +64,7 @@ TEST_CASE("span error of a shunted ammeter") {
 }
 
 TEST_CASE("swamping design for a voltage-driven coil meets the target exactly") {
-    // Closed form for a zero-tempco swamp (derived from the swamping rule, check-values §8):
+    // Closed form for a zero-tempco swamp (derived from the swamping rule, common practice):
     // |R_m(ref) - R_m(t)| / (R_sw + R_m(t)) = limit at the worse end.
     SwampRequest request;
     request.ohms_coil_20C = 5.0;
@@ -76,7 +78,7 @@ TEST_CASE("swamping design for a voltage-driven coil meets the target exactly") 
     CHECK(design.celsius_worst == 30.0);
     CHECK(design.worst_error_fraction == relative(-0.01, 1e-9));
     CHECK_FALSE(design.ohms_shunt_20C.has_value());
-    // The check-values vector: with 15 Ω the effective tempco is a quarter of copper's.
+    // Computed vector: with 15 Ω the effective tempco is a quarter of copper's.
     request.error_limit_fraction = 5.0 * 0.0393 / (15.0 + 5.0 * 1.0393);
     CHECK(designSwamp(request).ohms_swamp_20C == relative(15.0, 1e-9));
 }
@@ -92,7 +94,7 @@ TEST_CASE("swamping design for an ammeter resizes the shunt and is minimal") {
     request.error_limit_fraction = 0.005;
     request.amps_fs = 1e-3;
     request.amps_range = 1.0;
-    request.swamp_tempco_per_K = 15e-6; // manganin, check-values §8
+    request.swamp_tempco_per_K = 15e-6; // manganin, order 1e-5 /K (handbook tables)
     const SwampDesign design = designSwamp(request);
     REQUIRE(design.ohms_shunt_20C.has_value());
     CHECK(std::fabs(design.worst_error_fraction) <= 0.005 * (1.0 + 1e-9));

@@ -14,7 +14,8 @@ using mwtest::absolute;
 using mwtest::relative;
 
 TEST_CASE("multiplier for one range") {
-    // Classic textbook case (check-values §10, from memory): 100 V, 1 mA, 100 Ω -> 99.9 kΩ.
+    // Classic textbook case (from memory; printed source not re-checked): 100 V, 1 mA, 100 Ω
+    // -> 99.9 kΩ.
     CHECK(multiplier_ohm({1e-3, 100.0}, 100.0) == relative(99.9e3, 1e-12));
     // Helfrick & Cooper Example 4-3, lowest range: 10 V, 1 mA, 100 Ω -> 9.9 kΩ.
     CHECK(multiplier_ohm({1e-3, 100.0}, 10.0) == relative(9.9e3, 1e-12));

@@ -25,7 +25,7 @@ DiodeParameters plainDiode() {
 
 TEST_CASE("slope n·kT/q comes from the exact 2019 SI constants") {
     // 2019 SI k and e (SI Brochure 9th ed.): kT/q = 25.852000 mV at 300 K, 25.520232 mV at
-    // 23 °C (check-values §9, computed from the exact constants).
+    // 23 °C (computed from the exact constants).
     CHECK(Diode(plainDiode(), 300.0 - 273.15).slope_V() == mwtest::relative(25.852000e-3, 1e-7));
     CHECK(Diode(plainDiode(), 23.0).slope_V() == mwtest::relative(25.520232e-3, 1e-7));
     DiodeParameters n2 = plainDiode();

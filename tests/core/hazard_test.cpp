@@ -25,7 +25,7 @@ TEST_CASE("AC above 30 V rms or 42.4 V peak is hazardous live") {
     CHECK(hazardCaution(30.5, VoltageKind::AcRms).has_value());
     CHECK_FALSE(hazardCaution(42.4, VoltageKind::Peak).has_value());
     CHECK(hazardCaution(42.5, VoltageKind::Peak).has_value());
-    // Crest factor of a square wave is 1, of a triangle √3 (check-values §7, computed).
+    // Crest factor of a square wave is 1, of a triangle √3 (exact forms, computed).
     CHECK_FALSE(hazardCaution(29.0, VoltageKind::AcRms, 1.0).has_value());
     CHECK(hazardCaution(25.0, VoltageKind::AcRms, std::sqrt(3.0)).has_value()); // 43.3 V peak
     CHECK_FALSE(hazardCaution(24.0, VoltageKind::AcRms, std::sqrt(3.0)).has_value());

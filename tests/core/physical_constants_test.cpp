@@ -21,7 +21,7 @@ TEST_CASE("Boltzmann constant and elementary charge are the exact 2019 SI values
 }
 
 TEST_CASE("thermal voltage kT/q at the usual temperatures") {
-    // Computed from the exact constants (30-digit arithmetic), check-values table for kT/q;
+    // Computed from the exact 2019 SI constants (9th SI Brochure) in 30-digit arithmetic;
     // 25.85 mV at 300 K is the textbook figure (common practice).
     CHECK(thermalVoltage_V(300.0) == relative(25.852000e-3, 1e-7));
     CHECK(thermalVoltage_V(293.15) == relative(25.261712e-3, 1e-7));

@@ -22,7 +22,7 @@ TEST_CASE("Helfrick & Cooper Example 4-9: bridge multiplier with ideal diodes") 
     const RectifierCircuit bridge{Rectifier::Bridge, 1e-3, 50.0, 0.0};
     // Book: E_dc = 0.9 × 10 V = 9 V, R_T = 9 kΩ, R_s = 9 kΩ − 50 Ω = 8 950 Ω.
     CHECK(idealMultiplierOhms(bridge, 10.0, 0.9) == mwtest::relative(8950.0, 1e-12));
-    // Exact factor 2√2/π: R_s = 8 953.2 Ω (check-values §10, computed).
+    // Exact factor 2√2/π: R_s = 8 953.2 Ω (computed from the exact formula).
     CHECK(idealMultiplierOhms(bridge, 10.0, averagePerRms(Rectifier::Bridge)) ==
           mwtest::absolute(8953.2, 0.05));
     const MultiplierSolution solved = solveMultiplier(RectifierMeter(bridge, IdealDiodes{}), 10.0);
@@ -37,7 +37,7 @@ TEST_CASE("Helfrick & Cooper Example 4-10: half-wave with shunt and 400 Ω diode
     CHECK(idealMultiplierOhms(half, 10.0, 0.45, IdealDiodes{400.0}) ==
           mwtest::relative(1800.0, 1e-12));
     CHECK(acSensitivityOhmPerVolt(half, 0.45) == mwtest::relative(225.0, 1e-12));
-    // Exact factor √2/π: R_s = 1 800.8 Ω (check-values §10, computed).
+    // Exact factor √2/π: R_s = 1 800.8 Ω (computed from the exact formula).
     const MultiplierSolution solved =
         solveMultiplier(RectifierMeter(half, IdealDiodes{400.0}), 10.0);
     CHECK(solved.multiplier_ohms == mwtest::absolute(1800.8, 0.05));
@@ -45,7 +45,8 @@ TEST_CASE("Helfrick & Cooper Example 4-10: half-wave with shunt and 400 Ω diode
 }
 
 TEST_CASE("AC sensitivity is 0.9 and 0.45 of the DC ohms per volt for ideal diodes") {
-    // check-values §7: S_ac = 2√2/π·S_dc (bridge) and √2/π·S_dc (half-wave) for a sine.
+    // S_ac = 2√2/π·S_dc (bridge) and √2/π·S_dc (half-wave) for a sine (exact forms, computed;
+    // Helfrick & Cooper use the rounded 0.9 and 0.45 in Examples 4-9 and 4-10).
     const RectifierCircuit movement{Rectifier::Bridge, 1e-3, 100.0, 0.0};
     CHECK(acSensitivityOhmPerVolt(movement, averagePerRms(Rectifier::Bridge)) ==
           mwtest::relative(900.316, 1e-6));
@@ -53,13 +54,13 @@ TEST_CASE("AC sensitivity is 0.9 and 0.45 of the DC ohms per volt for ideal diod
           mwtest::relative(450.158, 1e-6));
     CHECK(acSensitivityOhmPerVolt(movement, averagePerRms(Rectifier::None)) ==
           mwtest::relative(1000.0, 1e-15));
-    // For a square wave the rectified average equals the rms (form factor 1, §7).
+    // For a square wave the rectified average equals the rms (form factor 1, exact).
     CHECK(averagePerRms(Rectifier::Bridge, WaveShape::Square) == mwtest::relative(1.0, 1e-15));
 }
 
 TEST_CASE("DC voltmeter multiplier: R_s = V/I_fs − R_m") {
     // Helfrick & Cooper Example 4-3: 1 mA, 100 Ω → 9.9 kΩ for 10 V; 99.9 kΩ for 100 V
-    // (check-values §10, classic textbook case, from memory).
+    // (the 100 V figure is the classic textbook case, from memory; no printed source checked).
     const RectifierMeter dc({Rectifier::None, 1e-3, 100.0, 0.0}, IdealDiodes{});
     CHECK(solveMultiplier(dc, 10.0).multiplier_ohms == mwtest::relative(9900.0, 1e-12));
     CHECK(solveMultiplier(dc, 100.0).multiplier_ohms == mwtest::relative(99900.0, 1e-12));

@@ -24,8 +24,8 @@ RectifierCircuit circuit(Rectifier rectifier, double multiplier_ohms, double shu
 
 TEST_CASE("ideal bridge: movement current is 0.9003 × Vrms over the total resistance") {
     // Helfrick & Cooper Example 4-9: I_fs = 1 mA, R_m = 50 Ω, 10 V rms, book multiplier
-    // 8 950 Ω from E_dc = 0.9 × 10 V. With the exact factor 2√2/π = 0.900316 (check-values
-    // §7) the same circuit passes 0.900316 × 10 / 9 000 = 1.000351 mA.
+    // 8 950 Ω from E_dc = 0.9 × 10 V. With the exact factor 2√2/π = 0.900316 (computed from
+    // the exact formula) the same circuit passes 0.900316 × 10 / 9 000 = 1.000351 mA.
     const RectifierMeter meter({Rectifier::Bridge, 1e-3, 50.0, 8950.0}, IdealDiodes{});
     const PeriodAverage average = meter.average(Waveform::withRms(WaveShape::Sine, 10.0));
     CHECK(average.movement_amps == mwtest::relative(1.000351e-3, 1e-6));

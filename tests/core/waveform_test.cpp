@@ -29,18 +29,18 @@ double numericMean(const Waveform& w, F&& f, int points = 200000) {
 } // namespace
 
 TEST_CASE("form factors of sine, square and triangle") {
-    // check-values §7 (exact forms): π/(2√2) = 1.110721, 1, 2/√3 = 1.154701.
+    // Exact forms, computed: π/(2√2) = 1.110721, 1, 2/√3 = 1.154701.
     CHECK(Waveform::sine(1.0).formFactor() == mwtest::relative(1.110721, 1e-6));
     CHECK(Waveform::square(3.0).formFactor() == mwtest::relative(1.0, 1e-15));
     CHECK(Waveform::triangle(2.0).formFactor() == mwtest::relative(1.154701, 1e-6));
-    // Crest factors √2, 1, √3 (check-values §7).
+    // Crest factors √2, 1, √3 (exact forms, computed).
     CHECK(Waveform::sine(5.0).crestFactor() == mwtest::relative(1.414214, 1e-6));
     CHECK(Waveform::square(5.0).crestFactor() == mwtest::relative(1.0, 1e-15));
     CHECK(Waveform::triangle(5.0).crestFactor() == mwtest::relative(1.732051, 1e-6));
 }
 
 TEST_CASE("rectified averages of a sine: 2/π and 1/π of the peak, 0.9003 and 0.4502 of rms") {
-    // check-values §7: full-wave 2/π = 0.636620, half-wave 1/π = 0.318310 of the peak;
+    // Exact forms, computed: full-wave 2/π = 0.636620, half-wave 1/π = 0.318310 of the peak;
     // 2√2/π = 0.900316 and √2/π = 0.450158 of the rms.
     const Waveform w = Waveform::sine(10.0);
     CHECK(w.rectifiedAverage() == mwtest::relative(6.36620, 1e-6));
@@ -52,7 +52,7 @@ TEST_CASE("rectified averages of a sine: 2/π and 1/π of the peak, 0.9003 and 0
 }
 
 TEST_CASE("average-responding meter: sine reads true, square +11.07 %, triangle −3.81 %") {
-    // check-values §7: indication per true rms 1.110721 (square) and 0.961912 (triangle);
+    // Exact forms, computed: indication per true rms 1.110721 (square) and 0.961912 (triangle);
     // errors +11.07 % and −3.81 % (not −3.85 %).
     CHECK(averageRespondingReading(Waveform::sine(2.0)).error_percent ==
           mwtest::absolute(0.0, 1e-12));
@@ -93,7 +93,7 @@ TEST_CASE("sampled waveform statistics are the sample means of a digitiser recor
     CHECK(record.rms() == 1.0);
     CHECK(record.rectifiedAverage() == 1.0);
     CHECK(record.formFactor() == 1.0);
-    // A finely sampled sine approaches the sine's form factor π/(2√2) (check-values §7).
+    // A finely sampled sine approaches the sine's exact form factor π/(2√2), computed.
     std::vector<double> samples;
     for (int k = 0; k < 4096; ++k) {
         samples.push_back(std::sin(2.0 * std::numbers::pi * (k + 0.5) / 4096));
