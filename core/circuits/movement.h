@@ -7,6 +7,8 @@ struct Movement {
     double amps_fs = 0.0;   // current for full-scale deflection
     double ohms_coil = 0.0; // coil resistance (at the temperature the design is made for)
 
+    bool operator==(const Movement&) const = default;
+
     // Voltage across the coil at full scale: the lowest range a voltmeter can have.
     double fullScaleDrop_V() const { return amps_fs * ohms_coil; }
     // DC sensitivity in ohms per volt: 1 / I_fs.

@@ -209,4 +209,28 @@ std::string_view displayName(DecisionRule value) {
                                                    : "Guarded acceptance (ILAC G8 4.2.3)";
 }
 
+std::string_view displayName(InstrumentStatus value) {
+    switch (value) {
+    case InstrumentStatus::InService:
+        return "In service";
+    case InstrumentStatus::OutOfService:
+        return "Out of service";
+    case InstrumentStatus::Retired:
+        return "Retired";
+    }
+    return "?";
+}
+
+std::string_view displayName(Role value) {
+    switch (value) {
+    case Role::Technician:
+        return "Technician";
+    case Role::Reviewer:
+        return "Reviewer";
+    case Role::Administrator:
+        return "Administrator";
+    }
+    return "?";
+}
+
 } // namespace mw

@@ -62,5 +62,7 @@ std::string_view displayName(Phase value);
 std::string_view displayName(SessionState value);
 std::string_view displayName(Outcome value);
 std::string_view displayName(DecisionRule value);
+std::string_view displayName(InstrumentStatus value);
+std::string_view displayName(Role value);
 
 } // namespace mw

@@ -1,0 +1,43 @@
+// Tamper evidence: the canonical text of an approved record, its SHA-256 digest chained with
+// the previously approved record, and the verification of the whole chain.
+#pragma once
+
+#include "core/model/calibration.h"
+
+#include <QByteArray>
+#include <QString>
+
+#include <cstdint>
+#include <optional>
+
+namespace mw::storage {
+
+class Workbook;
+
+// Canonical serialisation (UTF-8, one "key=value" line per field, fixed order, readings sorted
+// by their key, numbers in shortest round-trip form). State and digest are not part of it: an
+// approved record later superseded keeps its digest.
+QByteArray canonicalRecord(const CalibrationSession& session);
+
+// Lower-case hex SHA-256 of previousDigest + "\n" + canonical; previousDigest is "" for the
+// first record of a workbook.
+QString chainDigest(const QString& previousDigest, const QByteArray& canonical);
+
+struct VerificationReport {
+    bool integrityOk = false; // PRAGMA integrity_check said "ok"
+    QString integrityMessage; // its first complaint otherwise
+    int recordsChecked = 0;   // approved records whose digest was recomputed
+    int sessionsChecked = 0;  // all sessions looked at for a missing chain entry
+    // The first record that no longer matches, e.g. "record 3 (session 17, instrument VM-004,
+    // revision 1, approved 2024-03-05T10:00:00Z): contents changed since approval".
+    std::optional<QString> firstMismatch;
+    std::optional<std::int64_t> firstMismatchSessionId;
+
+    bool sound() const { return integrityOk && !firstMismatch; }
+};
+
+// Recomputes every digest in approval order and checks each link of the chain, and that every
+// approved or superseded session has its entry. Reads only.
+VerificationReport verifyWorkbook(const Workbook& workbook);
+
+} // namespace mw::storage

@@ -1,0 +1,140 @@
+// One query per table for any set of sessions: the history of an instrument stays fast.
+#include "storage/session_loader.h"
+
+#include "storage/sql_support.h"
+
+#include <map>
+
+namespace mw::storage::detail {
+namespace {
+
+CalibrationSession sessionFrom(const QSqlQuery& q) {
+    CalibrationSession s;
+    s.id = q.value(0).toLongLong();
+    s.instrument_id = q.value(1).toLongLong();
+    s.technician_id = q.value(2).toLongLong();
+    s.started_at = sql::timestampFrom(q.value(3));
+    s.finished_at = sql::optionalTimestamp(q.value(4));
+    s.environment = {q.value(5).toDouble(), q.value(6).toDouble()};
+    s.method = sql::toStd(q.value(7));
+    s.decision_rule = sql::enumFrom<DecisionRule>(q.value(8), "calibration_sessions.decision_rule");
+    s.guard_factor = q.value(9).toDouble();
+    if (!q.value(10).isNull()) {
+        s.outcome = sql::enumFrom<Outcome>(q.value(10), "calibration_sessions.outcome");
+    }
+    s.state = sql::enumFrom<SessionState>(q.value(11), "calibration_sessions.state");
+    s.submitted_at = sql::optionalTimestamp(q.value(12));
+    s.return_comment = sql::toStd(q.value(13));
+    s.returned_at = sql::optionalTimestamp(q.value(14));
+    if (!q.value(15).isNull()) {
+        s.reviewer_id = q.value(15).toLongLong();
+    }
+    s.approved_at = sql::optionalTimestamp(q.value(16));
+    s.revision = q.value(17).toInt();
+    if (!q.value(18).isNull()) {
+        s.supersedes_id = q.value(18).toLongLong();
+    }
+    s.amendment_reason = sql::toStd(q.value(19));
+    s.amended_at = sql::optionalTimestamp(q.value(20));
+    s.digest = sql::toStd(q.value(21));
+    return s;
+}
+
+using Index = std::map<std::int64_t, CalibrationSession*>;
+
+// Runs "SELECT session_id, ... FROM table WHERE session_id IN (matching sessions)" and hands
+// each row to `take` with its session.
+template <typename Take>
+void forEachPart(const QSqlDatabase& db, const QString& columns, const QString& table,
+                 const QString& condition, const QVariant& value, const Index& index, Take take) {
+    QSqlQuery q = sql::prepare(
+        db, QStringLiteral("SELECT session_id, %1 FROM %2 WHERE session_id IN (SELECT s.id FROM "
+                           "calibration_sessions s WHERE %3) ORDER BY session_id, id")
+                .arg(columns, table, condition));
+    if (value.isValid()) {
+        q.addBindValue(value);
+    }
+    sql::exec(q, QStringLiteral("reading ") + table);
+    while (q.next()) {
+        if (auto at = index.find(q.value(0).toLongLong()); at != index.end()) {
+            take(*at->second, q);
+        }
+    }
+}
+
+void loadParts(const QSqlDatabase& db, const QString& condition, const QVariant& value,
+               const Index& index) {
+    forEachPart(db,
+                QStringLiteral("standard_id, certificate_number, due_date, "
+                               "overdue_justification"),
+                QStringLiteral("session_standards"), condition, value, index,
+                [](CalibrationSession& s, const QSqlQuery& q) {
+                    s.standards.push_back({q.value(1).toLongLong(), sql::toStd(q.value(2)),
+                                           sql::dateFrom(q.value(3)), sql::toStd(q.value(4))});
+                });
+    forEachPart(db,
+                QStringLiteral("range_id, point_index, direction, phase, repeat_number, "
+                               "unit, applied, indicated"),
+                QStringLiteral("readings"), condition, value, index,
+                [](CalibrationSession& s, const QSqlQuery& q) {
+                    Reading r;
+                    r.range_id = q.value(1).toLongLong();
+                    r.point_index = q.value(2).toInt();
+                    r.direction = sql::enumFrom<Direction>(q.value(3), "readings.direction");
+                    r.phase = sql::enumFrom<Phase>(q.value(4), "readings.phase");
+                    r.repeat = q.value(5).toInt();
+                    r.unit = sql::unitFrom(q.value(6));
+                    r.applied = q.value(7).toDouble();
+                    r.indicated = q.value(8).toDouble();
+                    s.readings.push_back(r);
+                });
+    forEachPart(db,
+                QStringLiteral("range_id, component, computed_ohms, measured_ohms, "
+                               "tolerance_percent"),
+                QStringLiteral("resistor_checks"), condition, value, index,
+                [](CalibrationSession& s, const QSqlQuery& q) {
+                    s.resistor_checks.push_back({q.value(1).toLongLong(), sql::toStd(q.value(2)),
+                                                 q.value(3).toDouble(), q.value(4).toDouble(),
+                                                 q.value(5).toDouble()});
+                });
+    forEachPart(
+        db, QStringLiteral("noted_at, note_text"), QStringLiteral("adjustment_notes"), condition,
+        value, index, [](CalibrationSession& s, const QSqlQuery& q) {
+            s.adjustments.push_back({sql::timestampFrom(q.value(1)), sql::toStd(q.value(2))});
+        });
+}
+
+} // namespace
+
+std::vector<CalibrationSession> loadSessions(const QSqlDatabase& db, const QString& condition,
+                                             const QVariant& value) {
+    QSqlQuery q = sql::prepare(
+        db, QStringLiteral("SELECT s.id, s.instrument_id, s.technician_id, s.started_at, "
+                           "s.finished_at, s.ambient_celsius, s.relative_humidity_percent, "
+                           "s.method, s.decision_rule, s.guard_factor, s.outcome, s.state, "
+                           "s.submitted_at, s.return_comment, s.returned_at, s.reviewer_id, "
+                           "s.approved_at, s.revision, s.supersedes_id, s.amendment_reason, "
+                           "s.amended_at, c.digest FROM calibration_sessions s LEFT JOIN "
+                           "record_chain c ON c.session_id = s.id WHERE %1 ORDER BY "
+                           "s.started_at, s.id")
+                .arg(condition));
+    if (value.isValid()) {
+        q.addBindValue(value);
+    }
+    sql::exec(q, QStringLiteral("reading calibration sessions"));
+    std::vector<CalibrationSession> sessions;
+    while (q.next()) {
+        sessions.push_back(sessionFrom(q));
+    }
+    if (sessions.empty()) {
+        return sessions;
+    }
+    Index index;
+    for (CalibrationSession& s : sessions) {
+        index[s.id] = &s;
+    }
+    loadParts(db, condition, value, index);
+    return sessions;
+}
+
+} // namespace mw::storage::detail

@@ -1,0 +1,168 @@
+// Calibration sessions: drafts and their parts, and loading records.
+#include "storage/session_repository.h"
+
+#include "storage/session_loader.h"
+#include "storage/session_parts.h"
+#include "storage/sql_support.h"
+#include "storage/transaction.h"
+#include "storage/workbook.h"
+
+namespace mw::storage {
+namespace {
+
+using Kind = WorkbookError::Kind;
+
+void bindDetails(QSqlQuery& q, const CalibrationSession& s) {
+    q.addBindValue(sql::nullableTime(s.finished_at));
+    q.addBindValue(s.environment.ambient_celsius);
+    q.addBindValue(s.environment.relative_humidity_percent);
+    q.addBindValue(QString::fromStdString(s.method));
+    q.addBindValue(sql::enumText(s.decision_rule));
+    q.addBindValue(s.guard_factor);
+    q.addBindValue(s.outcome ? QVariant(sql::enumText(*s.outcome))
+                             : QVariant(QMetaType(QMetaType::QString)));
+}
+
+std::int64_t insertHeader(const QSqlDatabase& db, const CalibrationSession& s) {
+    QSqlQuery q = sql::prepare(
+        db, QStringLiteral("INSERT INTO calibration_sessions (finished_at, ambient_celsius, "
+                           "relative_humidity_percent, method, decision_rule, guard_factor, "
+                           "outcome, instrument_id, technician_id, started_at, state, "
+                           "return_comment, revision, supersedes_id, amendment_reason, "
+                           "amended_at) VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, ?, 'draft', '', ?, "
+                           "?, ?, ?) RETURNING id"));
+    bindDetails(q, s);
+    q.addBindValue(qint64(s.instrument_id));
+    q.addBindValue(qint64(s.technician_id));
+    q.addBindValue(sql::toIso(s.started_at));
+    q.addBindValue(s.revision);
+    q.addBindValue(sql::nullableId(s.supersedes_id));
+    q.addBindValue(QString::fromStdString(s.amendment_reason));
+    q.addBindValue(sql::nullableTime(s.amended_at));
+    sql::exec(
+        q, QStringLiteral("creating a calibration session of instrument %1").arg(s.instrument_id));
+    q.next();
+    const std::int64_t id = q.value(0).toLongLong();
+    q.finish();
+    return id;
+}
+
+} // namespace
+
+void SessionRepository::create(CalibrationSession& session) {
+    if (session.state != SessionState::Draft) {
+        throw WorkbookError(Kind::BadInput,
+                            QStringLiteral("a new calibration session is a draft; submit and "
+                                           "approve it through the workflow"));
+    }
+    const QSqlDatabase db = workbook_.database();
+    Transaction transaction(workbook_);
+    const std::int64_t id = insertHeader(db, session);
+    detail::insertStandards(db, id, session.standards);
+    detail::insertReadings(db, id, session.readings);
+    for (const ResistorCheck& check : session.resistor_checks) {
+        detail::insertResistorCheck(db, id, check);
+    }
+    for (const AdjustmentNote& note : session.adjustments) {
+        detail::insertAdjustmentNote(db, id, note);
+    }
+    transaction.commit();
+    session.id = id;
+}
+
+void SessionRepository::updateDetails(const CalibrationSession& session) {
+    Transaction transaction(workbook_);
+    QSqlQuery q = sql::prepare(
+        workbook_.database(),
+        QStringLiteral("UPDATE calibration_sessions SET finished_at = ?, ambient_celsius = ?, "
+                       "relative_humidity_percent = ?, method = ?, decision_rule = ?, "
+                       "guard_factor = ?, outcome = ? WHERE id = ?"));
+    bindDetails(q, session);
+    q.addBindValue(qint64(session.id));
+    sql::exec(q, QStringLiteral("saving calibration session %1").arg(session.id));
+    detail::requireOneRow(q, session.id);
+    transaction.commit();
+}
+
+void SessionRepository::setStandards(std::int64_t sessionId, std::vector<StandardUse> standards) {
+    const QSqlDatabase db = workbook_.database();
+    Transaction transaction(workbook_);
+    QSqlQuery del =
+        sql::prepare(db, QStringLiteral("DELETE FROM session_standards WHERE session_id = ?"));
+    del.addBindValue(qint64(sessionId));
+    sql::exec(del, QStringLiteral("replacing the standards of session %1").arg(sessionId));
+    detail::insertStandards(db, sessionId, standards);
+    transaction.commit();
+}
+
+void SessionRepository::saveReading(std::int64_t sessionId, const Reading& reading) {
+    saveReadings(sessionId, {reading});
+}
+
+void SessionRepository::saveReadings(std::int64_t sessionId, const std::vector<Reading>& readings) {
+    Transaction transaction(workbook_);
+    detail::insertReadings(workbook_.database(), sessionId, readings);
+    transaction.commit();
+}
+
+void SessionRepository::removeReading(std::int64_t sessionId, const Reading& key) {
+    Transaction transaction(workbook_);
+    QSqlQuery q = sql::prepare(workbook_.database(),
+                               QStringLiteral("DELETE FROM readings WHERE session_id = ? AND "
+                                              "range_id = ? AND point_index = ? AND direction = "
+                                              "? AND phase = ? AND repeat_number = ?"));
+    q.addBindValue(qint64(sessionId));
+    q.addBindValue(qint64(key.range_id));
+    q.addBindValue(key.point_index);
+    q.addBindValue(sql::enumText(key.direction));
+    q.addBindValue(sql::enumText(key.phase));
+    q.addBindValue(key.repeat);
+    sql::exec(q, QStringLiteral("removing a reading of session %1").arg(sessionId));
+    transaction.commit();
+}
+
+void SessionRepository::addResistorCheck(std::int64_t sessionId, const ResistorCheck& check) {
+    Transaction transaction(workbook_);
+    detail::insertResistorCheck(workbook_.database(), sessionId, check);
+    transaction.commit();
+}
+
+void SessionRepository::addAdjustmentNote(std::int64_t sessionId, const AdjustmentNote& note) {
+    Transaction transaction(workbook_);
+    detail::insertAdjustmentNote(workbook_.database(), sessionId, note);
+    transaction.commit();
+}
+
+void SessionRepository::removeDraft(std::int64_t sessionId) {
+    Transaction transaction(workbook_);
+    QSqlQuery q = sql::prepare(workbook_.database(),
+                               QStringLiteral("DELETE FROM calibration_sessions WHERE id = ?"));
+    q.addBindValue(qint64(sessionId));
+    sql::exec(q, QStringLiteral("deleting calibration session %1").arg(sessionId));
+    detail::requireOneRow(q, sessionId);
+    transaction.commit();
+}
+
+std::optional<CalibrationSession> SessionRepository::find(std::int64_t sessionId) const {
+    auto found =
+        detail::loadSessions(workbook_.database(), QStringLiteral("s.id = ?"), qint64(sessionId));
+    return found.empty() ? std::nullopt : std::optional(std::move(found.front()));
+}
+
+std::vector<CalibrationSession> SessionRepository::historyOf(std::int64_t instrumentId) const {
+    return detail::loadSessions(workbook_.database(), QStringLiteral("s.instrument_id = ?"),
+                                qint64(instrumentId));
+}
+
+std::vector<CalibrationSession> SessionRepository::withState(SessionState state) const {
+    return detail::loadSessions(workbook_.database(), QStringLiteral("s.state = ?"),
+                                sql::enumText(state));
+}
+
+std::int64_t SessionRepository::readingCount() const {
+    return sql::scalar(workbook_.database(), QStringLiteral("SELECT COUNT(*) FROM readings"),
+                       QStringLiteral("counting readings"))
+        .toLongLong();
+}
+
+} // namespace mw::storage

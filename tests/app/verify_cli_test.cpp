@@ -1,0 +1,147 @@
+// `meterwright verify WORKBOOK` run as a separate process: sound (exit 0), a record edited
+// behind the app's back (exit 1, named), and files it cannot open (exit 2, saying why).
+#include "storage/instrument_repository.h"
+#include "storage/session_repository.h"
+#include "storage/user_repository.h"
+#include "storage/workbook.h"
+
+#include <catch2/catch.hpp>
+
+#include <QFile>
+#include <QJsonDocument>
+#include <QJsonObject>
+#include <QProcess>
+#include <QSqlDatabase>
+#include <QSqlQuery>
+#include <QTemporaryDir>
+
+#include <chrono>
+
+namespace {
+
+struct Run {
+    int exitCode = -1;
+    QString out;
+    QString err;
+};
+
+Run meterwright(const QStringList& arguments) {
+    QProcess process;
+    process.start(QStringLiteral(MW_BINARY_DIR "/app/meterwright"), arguments);
+    REQUIRE(process.waitForFinished(120'000));
+    REQUIRE(process.exitStatus() == QProcess::NormalExit);
+    return Run{process.exitCode(), QString::fromUtf8(process.readAllStandardOutput()),
+               QString::fromUtf8(process.readAllStandardError())};
+}
+
+mw::Timestamp day(unsigned d, int hour) {
+    using namespace std::chrono;
+    return mw::Timestamp{sys_days{year{2025} / month{2} / ::std::chrono::day{d}}} + hours{hour};
+}
+
+// A workbook with two approved records (invented data); returns the second one's session id.
+std::int64_t writeWorkbook(const QString& path) {
+    mw::storage::OpenOptions options;
+    options.createIfMissing = true;
+    mw::storage::Workbook workbook(path, options);
+    mw::User tech{0, "tess", "Tess", mw::Role::Technician, true};
+    mw::User reviewer{0, "rory", "Rory", mw::Role::Reviewer, true};
+    mw::storage::UserRepository users(workbook);
+    users.add(tech, QStringLiteral("t-pass"));
+    users.add(reviewer, QStringLiteral("r-pass"));
+    mw::Instrument meter;
+    meter.asset_tag = "VM-7";
+    meter.movement = mw::Movement{1e-3, 50.0};
+    meter.accuracy_class = 2.5;
+    meter.ranges = {{0, "10 V", mw::Unit::Volt, 0.0, 10.0, 9950.0, std::nullopt}};
+    mw::storage::InstrumentRepository(workbook).add(meter);
+    mw::storage::SessionRepository sessions(workbook);
+    std::int64_t last = 0;
+    for (unsigned d = 1; d <= 2; ++d) {
+        mw::CalibrationSession s;
+        s.instrument_id = meter.id;
+        s.technician_id = tech.id;
+        s.started_at = day(d, 9);
+        s.readings = {{meter.ranges[0].id, 0, mw::Direction::Up, mw::Phase::AsFound, 1,
+                       mw::Unit::Volt, 5.0, 5.04}};
+        sessions.create(s);
+        sessions.submit(s.id, day(d, 11));
+        sessions.approve(s.id, reviewer.id, day(d, 15));
+        last = s.id;
+    }
+    return last;
+}
+
+void tamper(const QString& path, std::int64_t sessionId) {
+    const QString name = QStringLiteral("tamper");
+    {
+        QSqlDatabase db = QSqlDatabase::addDatabase(QStringLiteral("QSQLITE"), name);
+        db.setDatabaseName(path);
+        REQUIRE(db.open());
+        QSqlQuery(db).exec(QStringLiteral("DROP TRIGGER readings_frozen_update"));
+        QSqlQuery(db).exec(QStringLiteral("DROP TRIGGER readings_range_matches_update"));
+        QSqlQuery update(db);
+        REQUIRE(update.exec(QStringLiteral("UPDATE readings SET indicated = 5.00 WHERE "
+                                           "session_id = %1")
+                                .arg(sessionId)));
+        REQUIRE(update.numRowsAffected() == 1);
+        db.close();
+    }
+    QSqlDatabase::removeDatabase(name);
+}
+
+} // namespace
+
+TEST_CASE("verify: a sound workbook exits 0 and says what was checked", "[verify]") {
+    QTemporaryDir dir;
+    const QString path = dir.filePath(QStringLiteral("lab.mwb"));
+    writeWorkbook(path);
+    const Run run = meterwright({QStringLiteral("verify"), path});
+    INFO(run.out.toStdString() << run.err.toStdString());
+    CHECK(run.exitCode == 0);
+    CHECK(run.out.contains(QStringLiteral("integrity check: ok")));
+    CHECK(run.out.contains(QStringLiteral("recomputed and matched: 2")));
+    CHECK(run.out.contains(QStringLiteral("result: sound")));
+    CHECK(run.err.isEmpty());
+}
+
+TEST_CASE("verify: an edit behind the app's back exits 1 naming the record", "[verify]") {
+    QTemporaryDir dir;
+    const QString path = dir.filePath(QStringLiteral("lab.mwb"));
+    const std::int64_t second = writeWorkbook(path);
+    tamper(path, second);
+    const Run run = meterwright({QStringLiteral("verify"), path, QStringLiteral("--json")});
+    INFO(run.out.toStdString() << run.err.toStdString());
+    CHECK(run.exitCode == 1);
+    const QJsonObject report = QJsonDocument::fromJson(run.out.toUtf8()).object();
+    CHECK_FALSE(report.value(QStringLiteral("sound")).toBool());
+    CHECK(report.value(QStringLiteral("records_checked")).toInt() == 1);
+    CHECK(report.value(QStringLiteral("first_mismatch_session")).toInteger() == second);
+    CHECK(report.value(QStringLiteral("first_mismatch"))
+              .toString()
+              .startsWith(QStringLiteral("record 2 (session %1").arg(second)));
+}
+
+TEST_CASE("verify: files it cannot open exit 2 with the reason", "[verify]") {
+    QTemporaryDir dir;
+    const QString missing = dir.filePath(QStringLiteral("none.mwb"));
+    Run run = meterwright({QStringLiteral("verify"), missing});
+    CHECK(run.exitCode == 2);
+    CHECK(run.err.contains(QStringLiteral("does not exist")));
+    CHECK_FALSE(QFile::exists(missing));
+
+    const QString text = dir.filePath(QStringLiteral("notes.txt"));
+    {
+        QFile file(text);
+        REQUIRE(file.open(QIODevice::WriteOnly));
+        file.write("not a workbook at all\n");
+    }
+    run = meterwright({QStringLiteral("verify"), text});
+    CHECK(run.exitCode == 2);
+    CHECK(run.err.contains(QStringLiteral("not an SQLite database")));
+    CHECK(run.err.count(QLatin1Char('\n')) == 1);
+
+    run = meterwright({QStringLiteral("verify")});
+    CHECK(run.exitCode == 2);
+    CHECK(run.err.contains(QStringLiteral("exactly one WORKBOOK")));
+}

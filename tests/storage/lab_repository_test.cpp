@@ -1,0 +1,26 @@
+// The lab identity round-trips, with and without an accreditation id.
+#include "storage/lab_repository.h"
+
+#include "storage/workbook_error.h"
+#include "tests/storage/workbook_fixture.h"
+
+#include <catch2/catch.hpp>
+
+TEST_CASE("the lab identity round-trips and can be changed", "[lab]") {
+    mwtest::TempWorkbook temp;
+    const mw::Lab first{"Invented Meter Shop", "12 Workshop Lane\nSpringfield", "LAB-0042"};
+    {
+        auto workbook = temp.open();
+        mw::storage::LabRepository lab(*workbook);
+        CHECK_FALSE(lab.load());
+        lab.save(first);
+    }
+    mw::storage::Workbook workbook(temp.path());
+    mw::storage::LabRepository lab(workbook);
+    CHECK(lab.load() == first);
+    const mw::Lab second{"Invented Meter Shop Ltd", "13 Workshop Lane", std::nullopt};
+    lab.save(second);
+    CHECK(lab.load() == second);
+    CHECK_THROWS_AS(lab.save({"", "", std::nullopt}), mw::storage::WorkbookError);
+    CHECK(lab.load() == second);
+}

@@ -1,0 +1,154 @@
+// Tamper evidence: the canonical record, the SHA-256 chain, and verification naming the first
+// record changed behind the app's back (triggers dropped, rows edited with raw SQL).
+#include "storage/record_digest.h"
+
+#include "tests/storage/workbook_fixture.h"
+
+#include <catch2/catch.hpp>
+
+#include <QCryptographicHash>
+
+using mw::storage::canonicalRecord;
+using mw::storage::chainDigest;
+using mw::storage::verifyWorkbook;
+
+namespace {
+
+// Three approved records in a chain plus a draft; returns their session ids in approval order.
+std::vector<std::int64_t> approveThree(mw::storage::Workbook& workbook, const mwtest::Seed& seed) {
+    mw::storage::SessionRepository sessions(workbook);
+    std::vector<std::int64_t> ids;
+    for (unsigned day = 1; day <= 3; ++day) {
+        mw::CalibrationSession s = mwtest::draft(seed, mwtest::at(2025, 2, day));
+        sessions.create(s);
+        sessions.submit(s.id, mwtest::at(2025, 2, day, 14));
+        sessions.approve(s.id, seed.reviewer.id, mwtest::at(2025, 2, day, 16));
+        ids.push_back(s.id);
+    }
+    mw::CalibrationSession draft = mwtest::draft(seed, mwtest::at(2025, 2, 10));
+    sessions.create(draft);
+    return ids;
+}
+
+} // namespace
+
+TEST_CASE("the canonical record is independent of part order and sensitive to every value",
+          "[digest]") {
+    mwtest::Seed seed;
+    seed.instrument = mwtest::demoInstrument();
+    seed.instrument.ranges[0].id = 7;
+    mw::CalibrationSession s = mwtest::draft(seed);
+    s.id = 12;
+    const QByteArray text = canonicalRecord(s);
+    CHECK(text.startsWith("format=meterwright-record 1\nsession=12\n"));
+    CHECK(text.contains("reading=7|0|up|as-found|1|V|2|2.05\n"));
+
+    mw::CalibrationSession reordered = s;
+    std::reverse(reordered.readings.begin(), reordered.readings.end());
+    CHECK(canonicalRecord(reordered) == text);
+
+    mw::CalibrationSession nudged = s;
+    nudged.readings[3].indicated = std::nextafter(nudged.readings[3].indicated, 100.0);
+    CHECK(canonicalRecord(nudged) != text);
+    mw::CalibrationSession noted = s;
+    noted.adjustments[0].text += ".";
+    CHECK(canonicalRecord(noted) != text);
+    // A field separator inside a text cannot forge another field.
+    mw::CalibrationSession tricky = s;
+    tricky.method = "a\nreading=1|2";
+    CHECK_FALSE(canonicalRecord(tricky).contains("\nreading=1|2\n"));
+}
+
+TEST_CASE("a digest is SHA-256 of the previous digest, a newline and the record", "[digest]") {
+    const QByteArray record("format=meterwright-record 1\n");
+    const QString expected = QString::fromLatin1(
+        QCryptographicHash::hash(QByteArray("abc\n") + record, QCryptographicHash::Sha256).toHex());
+    CHECK(chainDigest(QStringLiteral("abc"), record) == expected);
+    // FIPS 180-2 Appendix B.1: SHA-256("abc") -- checks the hash the chain is built on.
+    CHECK(QCryptographicHash::hash("abc", QCryptographicHash::Sha256).toHex() ==
+          "ba7816bf8f01cfea414140de5dae2223b00361a396177a9cb410ff61f20015ad");
+}
+
+TEST_CASE("a sound workbook verifies", "[digest]") {
+    mwtest::TempWorkbook temp;
+    auto workbook = temp.open();
+    approveThree(*workbook, mwtest::seed(*workbook));
+    const auto report = verifyWorkbook(*workbook);
+    CHECK(report.sound());
+    CHECK(report.integrityOk);
+    CHECK(report.recordsChecked == 3);
+    CHECK(report.sessionsChecked == 4);
+    CHECK_FALSE(report.firstMismatch);
+}
+
+TEST_CASE("an edit behind the app's back names the first record that no longer matches",
+          "[digest]") {
+    mwtest::TempWorkbook temp;
+    std::vector<std::int64_t> ids;
+    {
+        auto workbook = temp.open();
+        ids = approveThree(*workbook, mwtest::seed(*workbook));
+    }
+    // The triggers refuse the edit ...
+    const QString edit = QStringLiteral("UPDATE readings SET indicated = indicated + 0.01 WHERE "
+                                        "session_id = %1 AND point_index = 2")
+                             .arg(ids[1]);
+    REQUIRE_FALSE(mwtest::rawExec(temp.path(), edit).isEmpty());
+    // ... so someone drops them first, as with the sqlite3 shell.
+    mwtest::dropAllTriggers(temp.path());
+
+    SECTION("a reading changed") {
+        REQUIRE(mwtest::rawExec(temp.path(), edit).isEmpty());
+        mw::storage::Workbook workbook(temp.path());
+        const auto report = verifyWorkbook(workbook);
+        CHECK_FALSE(report.sound());
+        CHECK(report.firstMismatchSessionId == ids[1]);
+        REQUIRE(report.firstMismatch);
+        CHECK(report.firstMismatch->startsWith(QStringLiteral("record 2 (session %1").arg(ids[1])));
+        CHECK(report.firstMismatch->contains(QStringLiteral("no longer match")));
+        CHECK(report.recordsChecked == 1);
+    }
+    SECTION("an approved record set back to draft") {
+        REQUIRE(mwtest::rawExec(temp.path(), QStringLiteral("UPDATE calibration_sessions SET "
+                                                            "state = 'draft' WHERE id = %1")
+                                                 .arg(ids[2]))
+                    .isEmpty());
+        mw::storage::Workbook workbook(temp.path());
+        const auto report = verifyWorkbook(workbook);
+        CHECK(report.firstMismatchSessionId == ids[2]);
+        CHECK(report.firstMismatch->contains(QStringLiteral("state was changed")));
+    }
+    SECTION("a record removed from the chain") {
+        REQUIRE(mwtest::rawExec(temp.path(), QStringLiteral("DELETE FROM record_chain WHERE "
+                                                            "session_id = %1")
+                                                 .arg(ids[0]))
+                    .isEmpty());
+        mw::storage::Workbook workbook(temp.path());
+        const auto report = verifyWorkbook(workbook);
+        CHECK(report.firstMismatchSessionId == ids[1]);
+        CHECK(report.firstMismatch->contains(QStringLiteral("link to the previous record")));
+    }
+    SECTION("a draft marked approved without being sealed") {
+        REQUIRE(mwtest::rawExec(
+                    temp.path(),
+                    QStringLiteral("UPDATE calibration_sessions SET state = "
+                                   "'approved', submitted_at = started_at, "
+                                   "reviewer_id = (SELECT id FROM users WHERE login = 'rory'), "
+                                   "approved_at = started_at "
+                                   "WHERE state = 'draft'"))
+                    .isEmpty());
+        mw::storage::Workbook workbook(temp.path());
+        const auto report = verifyWorkbook(workbook);
+        CHECK(report.recordsChecked == 3);
+        CHECK(report.firstMismatch->contains(QStringLiteral("never sealed")));
+    }
+    SECTION("the standard's certificate rewritten in the record") {
+        REQUIRE(mwtest::rawExec(temp.path(), QStringLiteral("UPDATE session_standards SET "
+                                                            "certificate_number = 'CERT-X' "
+                                                            "WHERE session_id = %1")
+                                                 .arg(ids[0]))
+                    .isEmpty());
+        mw::storage::Workbook workbook(temp.path());
+        CHECK(verifyWorkbook(workbook).firstMismatchSessionId == ids[0]);
+    }
+}

@@ -1,0 +1,50 @@
+// Reference standards round-trip with their specification rows; recalibration replaces them.
+#include "storage/standard_repository.h"
+
+#include "storage/workbook_error.h"
+#include "tests/storage/workbook_fixture.h"
+
+#include <catch2/catch.hpp>
+
+TEST_CASE("a reference standard round-trips every field", "[standards]") {
+    mwtest::TempWorkbook temp;
+    mw::ReferenceStandard written;
+    written.asset_tag = "STD-07";
+    written.description = "Standard resistor set";
+    written.certificate_number = "C-2025-0031";
+    written.due_date = mwtest::date(2026, 1, 31);
+    written.specs = {
+        {"10 kOhm", mw::Unit::Ohm, 10e3, 0.0, 0.0, 0.0, 0.017, 2.0},
+        {"2 V DC", mw::Unit::Volt, 2.0, 0.004, 0.0005, 5e-6, std::nullopt, 2.0},
+        {"200 mA DC", mw::Unit::Ampere, 0.2, 0.01, 0.002, 1e-6, 3e-5, 2.1},
+    };
+    {
+        auto workbook = temp.open();
+        mw::storage::StandardRepository(*workbook).add(written);
+        REQUIRE(written.id > 0);
+    }
+    mw::storage::Workbook workbook(temp.path());
+    mw::storage::StandardRepository standards(workbook);
+    CHECK(standards.find(written.id) == written);
+    CHECK(standards.findByTag(QStringLiteral("STD-07")) == written);
+
+    mw::ReferenceStandard recalibrated = written;
+    recalibrated.certificate_number = "C-2026-0007";
+    recalibrated.due_date = mwtest::date(2027, 1, 31);
+    recalibrated.specs.pop_back();
+    standards.update(recalibrated);
+    CHECK(standards.find(written.id) == recalibrated);
+    REQUIRE(standards.all().size() == 1);
+
+    mw::ReferenceStandard badUnit = written;
+    badUnit.asset_tag = "STD-08";
+    badUnit.specs[0].unit = mw::Unit::Hertz;
+    try {
+        standards.add(badUnit);
+        FAIL("a specification in hertz was stored");
+    } catch (const mw::storage::WorkbookError& error) {
+        CHECK(error.kind() == mw::storage::WorkbookError::Kind::BadInput);
+        CHECK(error.message().contains(QStringLiteral("10 kOhm")));
+    }
+    CHECK(standards.all().size() == 1); // nothing half-written
+}
