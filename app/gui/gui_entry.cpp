@@ -4,7 +4,7 @@
 #include "app/gui/main_window.h"
 
 #include <QApplication>
-#include <QGuiApplication>
+#include <QMessageBox>
 
 #include <cstdio>
 #include <cstdlib>
@@ -50,6 +50,16 @@ int runGui(int argc, char* argv[]) {
 
     MainWindow window;
     window.show();
+    const QStringList arguments = QApplication::arguments();
+    if (arguments.size() > 1) {
+        QString error;
+        if (!window.openWorkbook(arguments.at(1), &error)) {
+            std::fprintf(stderr, "meterwright: cannot open %s: %s\n", qPrintable(arguments.at(1)),
+                         qPrintable(error));
+            QMessageBox::warning(&window, QObject::tr("Cannot open workbook"),
+                                 QObject::tr("%1\n\nThe file was not changed.").arg(error));
+        }
+    }
     return QApplication::exec();
 }
 

@@ -1,6 +1,8 @@
 // Thin table model over the instruments of the open workbook.
 #include "app/gui/instrument_list_model.h"
 
+#include <QIcon>
+
 namespace mw::gui {
 
 InstrumentListModel::InstrumentListModel(QObject* parent)
@@ -21,10 +23,19 @@ int InstrumentListModel::columnCount(const QModelIndex& parent) const {
 }
 
 QVariant InstrumentListModel::data(const QModelIndex& index, int role) const {
-    if (!index.isValid() || index.row() >= rowCount() || role != Qt::DisplayRole) {
+    if (!index.isValid() || index.row() >= rowCount()) {
         return {};
     }
     const InstrumentRow& row = rows_[static_cast<std::size_t>(index.row())];
+    if (role == Qt::DecorationRole && index.column() == Due && row.attention) {
+        return QIcon(QStringLiteral(":/icons/attention.svg"));
+    }
+    if (role == Qt::UserRole) {
+        return QVariant::fromValue<qlonglong>(row.instrumentId);
+    }
+    if (role != Qt::DisplayRole) {
+        return {};
+    }
     switch (index.column()) {
     case AssetTag:
         return row.assetTag;

@@ -4,17 +4,20 @@
 #include <QAbstractTableModel>
 #include <QString>
 
+#include <cstdint>
 #include <vector>
 
 namespace mw::gui {
 
 // One row as the register shows it; filled from the workbook by the window's controller.
 struct InstrumentRow {
+    std::int64_t instrumentId = 0;
     QString assetTag;
     QString description;
     QString kind;
     QString status;
     QString due;
+    bool attention = false; // overdue or never calibrated: shown with a caution icon
 };
 
 class InstrumentListModel : public QAbstractTableModel {

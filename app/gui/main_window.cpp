@@ -1,18 +1,27 @@
-// The main window: menus, the instrument register and the status bar.
+// The main window: menus, the instrument register with its detail, and the status bar.
 #include "app/gui/main_window.h"
 
 #include "app/gui/about_dialog.h"
+#include "app/gui/instrument_detail_panel.h"
 #include "app/gui/instrument_list_model.h"
+#include "app/gui/register_rows.h"
+#include "storage/instrument_repository.h"
+#include "storage/workbook.h"
+#include "storage/workbook_error.h"
 
 #include <QAction>
-#include <QApplication>
+#include <QFileDialog>
+#include <QFileInfo>
 #include <QHeaderView>
 #include <QLabel>
 #include <QMenuBar>
+#include <QMessageBox>
+#include <QSplitter>
 #include <QStackedWidget>
 #include <QStatusBar>
 #include <QTableView>
-#include <QVBoxLayout>
+
+#include <chrono>
 
 namespace mw::gui {
 
@@ -27,8 +36,14 @@ MainWindow::MainWindow(QWidget* parent)
     resize(1100, 700);
 }
 
+MainWindow::~MainWindow() = default;
+
 void MainWindow::buildMenus() {
     QMenu* workbookMenu = menuBar()->addMenu(tr("&Workbook"));
+    QAction* open = workbookMenu->addAction(tr("&Open…"));
+    open->setShortcut(QKeySequence::Open);
+    connect(open, &QAction::triggered, this, &MainWindow::chooseWorkbook);
+    workbookMenu->addSeparator();
     QAction* quit = workbookMenu->addAction(tr("&Quit"));
     quit->setShortcut(QKeySequence::Quit);
     connect(quit, &QAction::triggered, this, &QWidget::close);
@@ -39,37 +54,98 @@ void MainWindow::buildMenus() {
 }
 
 void MainWindow::buildRegister() {
-    auto* stack = new QStackedWidget(this);
-    stack->setObjectName(QStringLiteral("registerStack"));
+    registerStack_ = new QStackedWidget(this);
+    registerStack_->setObjectName(QStringLiteral("registerStack"));
 
+    auto* splitter = new QSplitter(Qt::Horizontal, registerStack_);
     instrumentModel_ = new InstrumentListModel(this);
-    instrumentView_ = new QTableView(stack);
+    instrumentView_ = new QTableView(splitter);
     instrumentView_->setObjectName(QStringLiteral("instrumentList"));
     instrumentView_->setModel(instrumentModel_);
     instrumentView_->setSelectionBehavior(QAbstractItemView::SelectRows);
     instrumentView_->setSelectionMode(QAbstractItemView::SingleSelection);
     instrumentView_->horizontalHeader()->setStretchLastSection(true);
     instrumentView_->verticalHeader()->hide();
+    detailPanel_ = new InstrumentDetailPanel(splitter);
+    splitter->addWidget(instrumentView_);
+    splitter->addWidget(detailPanel_);
+    splitter->setStretchFactor(0, 3);
+    splitter->setStretchFactor(1, 2);
 
-    emptyStateLabel_ = new QLabel(tr("<p><b>No instruments to show.</b></p>"
-                                     "<p>Open a workbook to see its register of instruments.</p>"),
-                                  stack);
+    emptyStateLabel_ = new QLabel(
+        tr("<p><b>No instruments to show.</b></p>"
+           "<p>Open a workbook (Workbook → Open…) to see its register of instruments.</p>"),
+        registerStack_);
     emptyStateLabel_->setObjectName(QStringLiteral("emptyState"));
     emptyStateLabel_->setAlignment(Qt::AlignCenter);
 
-    stack->addWidget(instrumentView_);
-    stack->addWidget(emptyStateLabel_);
-    setCentralWidget(stack);
+    registerStack_->addWidget(splitter);
+    registerStack_->addWidget(emptyStateLabel_);
+    setCentralWidget(registerStack_);
 
     connect(instrumentModel_, &QAbstractItemModel::modelReset, this, &MainWindow::updateEmptyState);
+    connect(instrumentView_->selectionModel(), &QItemSelectionModel::currentRowChanged, this,
+            &MainWindow::showSelectedInstrument);
     updateEmptyState();
 }
 
+bool MainWindow::openWorkbook(const QString& path, QString* error) {
+    try {
+        auto opened = std::make_unique<storage::Workbook>(path);
+        workbook_ = std::move(opened);
+    } catch (const storage::WorkbookError& failure) {
+        if (error != nullptr) {
+            *error = failure.message();
+        }
+        return false;
+    }
+    setWindowTitle(tr("%1 — Meterwright").arg(QFileInfo(path).fileName()));
+    reloadRegister();
+    QString status = tr("Workbook %1: %2 instruments").arg(path).arg(instrumentModel_->rowCount());
+    if (workbook_->isReadOnly()) {
+        status += tr(" — read-only (%1)").arg(workbook_->readOnlyReason());
+    }
+    statusBar()->showMessage(status);
+    return true;
+}
+
+void MainWindow::chooseWorkbook() {
+    const QString path = QFileDialog::getOpenFileName(
+        this, tr("Open workbook"), QString(), tr("Meterwright workbooks (*.mwb);;All files (*)"));
+    if (path.isEmpty()) {
+        return;
+    }
+    QString error;
+    if (!openWorkbook(path, &error)) {
+        QMessageBox::warning(this, tr("Cannot open workbook"),
+                             tr("%1\n\nThe file was not changed.").arg(error));
+    }
+}
+
+void MainWindow::reloadRegister() {
+    if (!workbook_) {
+        instrumentModel_->setRows({});
+        return;
+    }
+    const storage::InstrumentRepository instruments(*workbook_);
+    const auto today = std::chrono::floor<std::chrono::days>(std::chrono::system_clock::now());
+    instrumentModel_->setRows(buildRegisterRows(instruments.all(), instruments.dueList(), today));
+    instrumentView_->resizeColumnsToContents();
+    detailPanel_->showInstrument(std::nullopt);
+}
+
+void MainWindow::showSelectedInstrument() {
+    const QModelIndex current = instrumentView_->currentIndex();
+    if (!workbook_ || !current.isValid()) {
+        detailPanel_->showInstrument(std::nullopt);
+        return;
+    }
+    const auto id = instrumentModel_->rowAt(current.row()).instrumentId;
+    detailPanel_->showInstrument(storage::InstrumentRepository(*workbook_).find(id));
+}
+
 void MainWindow::updateEmptyState() {
-    auto* stack = static_cast<QStackedWidget*>(centralWidget());
-    stack->setCurrentWidget(instrumentModel_->rowCount() == 0
-                                ? static_cast<QWidget*>(emptyStateLabel_)
-                                : static_cast<QWidget*>(instrumentView_));
+    registerStack_->setCurrentIndex(instrumentModel_->rowCount() == 0 ? 1 : 0);
 }
 
 void MainWindow::showAbout() {

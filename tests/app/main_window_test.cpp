@@ -1,9 +1,12 @@
 // GUI smoke test: the main window and About box build, show their parts, and close (offscreen).
 #include "app/gui/about_dialog.h"
 #include "app/gui/gui_entry.h"
+#include "app/gui/instrument_detail_panel.h"
 #include "app/gui/instrument_list_model.h"
 #include "app/gui/main_window.h"
 #include "app/gui/safety_notice.h"
+#include "storage/instrument_repository.h"
+#include "storage/workbook.h"
 
 #include <catch2/catch.hpp>
 
@@ -12,6 +15,7 @@
 #include <QMenuBar>
 #include <QStatusBar>
 #include <QTableView>
+#include <QTemporaryDir>
 
 using mw::gui::MainWindow;
 
@@ -44,7 +48,7 @@ TEST_CASE("register switches from the empty state to the list when rows arrive")
     MainWindow window;
     window.show();
     window.instrumentModel()->setRows(
-        {{QStringLiteral("T-001"), QStringLiteral("Panel voltmeter"),
+        {{1, QStringLiteral("T-001"), QStringLiteral("Panel voltmeter"),
           QStringLiteral("DC voltmeter"), QStringLiteral("In service"),
           QStringLiteral("2027-03-01")}});
     auto* list = window.findChild<QTableView*>(QStringLiteral("instrumentList"));
@@ -56,7 +60,7 @@ TEST_CASE("register switches from the empty state to the list when rows arrive")
 TEST_CASE("instrument list model satisfies the Qt model contract") {
     mw::gui::InstrumentListModel model;
     QAbstractItemModelTester tester(&model, QAbstractItemModelTester::FailureReportingMode::Fatal);
-    model.setRows({{QStringLiteral("A"), QStringLiteral("B"), QStringLiteral("C"),
+    model.setRows({{1, QStringLiteral("A"), QStringLiteral("B"), QStringLiteral("C"),
                     QStringLiteral("D"), QStringLiteral("E")}});
     CHECK(model.rowCount() == 1);
     CHECK(model.columnCount() == mw::gui::InstrumentListModel::ColumnCount);
@@ -71,8 +75,59 @@ TEST_CASE("About box names the version and carries the safety notice") {
     auto* safety = dialog.findChild<QLabel*>(QStringLiteral("aboutSafetyText"));
     REQUIRE(safety != nullptr);
     CHECK(safety->text() == mw::gui::safetyNoticeText());
-    // IEC 61010-1 hazardous-live limits, as stated in the notice (check-values / IEC 61010-1).
+    // IEC 61010-1 hazardous-live limits (6.3.1 a)), as stated in the notice.
     CHECK(safety->text().contains(QStringLiteral("30 V rms")));
     CHECK(safety->text().contains(QStringLiteral("42.4 V peak")));
     CHECK(safety->text().contains(QStringLiteral("60 V DC")));
+}
+
+TEST_CASE("opening a missing workbook fails with a reason and keeps the window empty") {
+    MainWindow window;
+    QString error;
+    CHECK_FALSE(window.openWorkbook(QStringLiteral("/nonexistent/dir/none.mwb"), &error));
+    CHECK_FALSE(error.isEmpty());
+    CHECK(window.workbook() == nullptr);
+    CHECK(window.instrumentModel()->rowCount() == 0);
+}
+
+TEST_CASE("opening a workbook fills the register and selecting a row shows the detail") {
+    QTemporaryDir dir;
+    REQUIRE(dir.isValid());
+    const QString path = dir.filePath(QStringLiteral("register.mwb"));
+    {
+        mw::storage::OpenOptions options;
+        options.createIfMissing = true;
+        mw::storage::Workbook workbook(path, options);
+        mw::Instrument meter;
+        meter.asset_tag = "REG-0001";
+        meter.description = "Test panel voltmeter";
+        meter.kind = mw::InstrumentKind::DcVoltmeter;
+        meter.movement = {1e-3, 100.0};
+        meter.accuracy_class = 1.5;
+        meter.scale_divisions = 50;
+        mw::RangeSpec range;
+        range.label = "10 V";
+        range.unit = mw::Unit::Volt;
+        range.full_scale = 10.0;
+        range.nominal_ohms = 9900.0;
+        meter.ranges.push_back(range);
+        mw::storage::InstrumentRepository(workbook).add(meter);
+    }
+    MainWindow window;
+    window.show();
+    QString error;
+    REQUIRE(window.openWorkbook(path, &error));
+    CHECK(error.isEmpty());
+    REQUIRE(window.instrumentModel()->rowCount() == 1);
+    CHECK(window.instrumentModel()->rowAt(0).assetTag == QStringLiteral("REG-0001"));
+    CHECK(window.instrumentModel()->rowAt(0).due == QStringLiteral("Never calibrated"));
+
+    auto* list = window.findChild<QTableView*>(QStringLiteral("instrumentList"));
+    REQUIRE(list != nullptr);
+    list->setCurrentIndex(list->model()->index(0, 0));
+    CHECK(
+        window.detailPanel()->fieldText(QStringLiteral("class")).startsWith(QStringLiteral("1.5")));
+    CHECK(
+        window.detailPanel()->fieldText(QStringLiteral("movement")).contains(QStringLiteral("mA")));
+    CHECK(window.statusBar()->currentMessage().contains(QStringLiteral("1 instruments")));
 }

@@ -1,0 +1,56 @@
+// Builds the register's rows from workbook data.
+#include "app/gui/register_rows.h"
+
+#include <QDate>
+
+#include <map>
+
+namespace mw::gui {
+namespace {
+
+QString isoDate(std::chrono::sys_days day) {
+    const std::chrono::year_month_day ymd{day};
+    return QDate(int(ymd.year()), int(unsigned(ymd.month())), int(unsigned(ymd.day())))
+        .toString(Qt::ISODate);
+}
+
+QString toQString(std::string_view text) {
+    return QString::fromUtf8(text.data(), static_cast<qsizetype>(text.size()));
+}
+
+} // namespace
+
+std::vector<InstrumentRow> buildRegisterRows(const std::vector<Instrument>& instruments,
+                                             const std::vector<storage::DueItem>& dueList,
+                                             std::chrono::sys_days today) {
+    std::map<std::int64_t, const storage::DueItem*> dueById;
+    for (const storage::DueItem& item : dueList) {
+        dueById[item.instrument_id] = &item;
+    }
+    std::vector<InstrumentRow> rows;
+    rows.reserve(instruments.size());
+    for (const Instrument& instrument : instruments) {
+        InstrumentRow row;
+        row.instrumentId = instrument.id;
+        row.assetTag = QString::fromStdString(instrument.asset_tag);
+        row.description = QString::fromStdString(instrument.description);
+        row.kind = toQString(displayName(instrument.kind));
+        row.status = toQString(displayName(instrument.status));
+        const auto found = dueById.find(instrument.id);
+        if (instrument.status == InstrumentStatus::Retired) {
+            row.due = QStringLiteral("—");
+        } else if (found == dueById.end() || !found->second->due_date) {
+            row.due = QStringLiteral("Never calibrated");
+            row.attention = true;
+        } else if (*found->second->due_date < today) {
+            row.due = QStringLiteral("Overdue since %1").arg(isoDate(*found->second->due_date));
+            row.attention = true;
+        } else {
+            row.due = isoDate(*found->second->due_date);
+        }
+        rows.push_back(std::move(row));
+    }
+    return rows;
+}
+
+} // namespace mw::gui
