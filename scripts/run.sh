@@ -14,9 +14,9 @@ if [ -z "${DISPLAY:-}" ] && [ -z "${WAYLAND_DISPLAY:-}" ] && [ -z "${QT_QPA_PLAT
     exit 2
 fi
 
+# The demo workbook is written once; later runs open it as it was left.
 demo="$MW_ROOT/build/demo-workbook.mwb"
-if "$app" --help | grep -q '^  demo '; then
-    [ -f "$demo" ] || "$app" demo "$demo"
-    exec "$app" "$demo"
+if [ ! -f "$demo" ]; then
+    "$app" demo "$demo"
 fi
-exec "$app"
+exec "$app" "$demo"

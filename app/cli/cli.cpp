@@ -6,6 +6,7 @@
 #include "core/units/quantity.h"
 
 #include <QCoreApplication>
+#include <QFileInfo>
 #include <QTextStream>
 
 #include <cstring>
@@ -81,10 +82,10 @@ int runFrom(const std::vector<Command>& commands, const QString& family,
         }
         return kUsageError;
     }
+    const QString help = family.isEmpty() ? QStringLiteral("meterwright --help")
+                                          : QStringLiteral("meterwright %1 --help").arg(family);
     printError(family.isEmpty() ? QStringLiteral("command") : family,
-               QStringLiteral("unknown command \"%1\"; see meterwright %2 --help")
-                   .arg(name, family)
-                   .trimmed());
+               QStringLiteral("unknown command \"%1\"; see %2").arg(name, help));
     return kUsageError;
 }
 
@@ -105,7 +106,14 @@ bool wantsHeadless(int argc, char* argv[]) {
             return true;
         }
     }
-    return false;
+    // Anything else starting with a dash, or a bare word that names no file, is a mistyped
+    // option or command: say so without needing a display. A workbook path opens the window.
+    const QString word = QString::fromLocal8Bit(first);
+    if (word.startsWith(QLatin1Char('-'))) {
+        return true;
+    }
+    return !QFileInfo::exists(word) && !word.contains(QLatin1Char('/')) &&
+           !word.contains(QLatin1Char('.'));
 }
 
 int runHeadless(int argc, char* argv[]) {
@@ -121,6 +129,11 @@ int runHeadless(int argc, char* argv[]) {
     if (first == QStringLiteral("--help") || first == QStringLiteral("-h")) {
         printLine(generalHelp().trimmed());
         return 0;
+    }
+    if (first.startsWith(QLatin1Char('-'))) {
+        printError(QStringLiteral("options"),
+                   QStringLiteral("unknown option \"%1\"; see meterwright --help").arg(first));
+        return kUsageError;
     }
     if (first == QStringLiteral("calc")) {
         return runFrom(calcCommands(), QStringLiteral("calc"), arguments.mid(1));

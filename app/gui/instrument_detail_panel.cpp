@@ -49,6 +49,7 @@ InstrumentDetailPanel::InstrumentDetailPanel(QWidget* parent)
     ranges_->setObjectName(QStringLiteral("detailRanges"));
     ranges_->setHorizontalHeaderLabels(
         {tr("Range"), tr("Scale from"), tr("Full scale"), tr("Multiplier / shunt")});
+    ranges_->horizontalHeader()->setSectionResizeMode(QHeaderView::ResizeToContents);
     ranges_->horizontalHeader()->setStretchLastSection(true);
     ranges_->verticalHeader()->hide();
     ranges_->setEditTriggers(QAbstractItemView::NoEditTriggers);

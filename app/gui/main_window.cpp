@@ -64,13 +64,21 @@ void MainWindow::buildRegister() {
     instrumentView_->setModel(instrumentModel_);
     instrumentView_->setSelectionBehavior(QAbstractItemView::SelectRows);
     instrumentView_->setSelectionMode(QAbstractItemView::SingleSelection);
-    instrumentView_->horizontalHeader()->setStretchLastSection(true);
+    instrumentView_->horizontalHeader()->setSectionResizeMode(QHeaderView::ResizeToContents);
+    instrumentView_->horizontalHeader()->setSectionResizeMode(InstrumentListModel::Description,
+                                                              QHeaderView::Stretch);
+    instrumentView_->horizontalHeader()->setSectionResizeMode(InstrumentListModel::Kind,
+                                                              QHeaderView::Stretch);
     instrumentView_->verticalHeader()->hide();
+    instrumentView_->verticalHeader()->setDefaultSectionSize(fontMetrics().height() + 8);
+    instrumentView_->setWordWrap(false);
+    instrumentView_->setTextElideMode(Qt::ElideRight);
     detailPanel_ = new InstrumentDetailPanel(splitter);
     splitter->addWidget(instrumentView_);
     splitter->addWidget(detailPanel_);
     splitter->setStretchFactor(0, 3);
     splitter->setStretchFactor(1, 2);
+    splitter->setSizes({680, 420});
 
     emptyStateLabel_ = new QLabel(
         tr("<p><b>No instruments to show.</b></p>"
@@ -101,7 +109,10 @@ bool MainWindow::openWorkbook(const QString& path, QString* error) {
     }
     setWindowTitle(tr("%1 — Meterwright").arg(QFileInfo(path).fileName()));
     reloadRegister();
-    QString status = tr("Workbook %1: %2 instruments").arg(path).arg(instrumentModel_->rowCount());
+    QString status = tr("Workbook %1: %2 instruments")
+                         .arg(QFileInfo(path).fileName())
+                         .arg(instrumentModel_->rowCount());
+    statusBar()->setToolTip(QFileInfo(path).absoluteFilePath());
     if (workbook_->isReadOnly()) {
         status += tr(" — read-only (%1)").arg(workbook_->readOnlyReason());
     }
@@ -130,8 +141,10 @@ void MainWindow::reloadRegister() {
     const storage::InstrumentRepository instruments(*workbook_);
     const auto today = std::chrono::floor<std::chrono::days>(std::chrono::system_clock::now());
     instrumentModel_->setRows(buildRegisterRows(instruments.all(), instruments.dueList(), today));
-    instrumentView_->resizeColumnsToContents();
     detailPanel_->showInstrument(std::nullopt);
+    if (instrumentModel_->rowCount() > 0) {
+        instrumentView_->setCurrentIndex(instrumentModel_->index(0, 0));
+    }
 }
 
 void MainWindow::showSelectedInstrument() {

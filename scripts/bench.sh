@@ -1,0 +1,16 @@
+#!/usr/bin/env bash
+# Builds the Release tree and runs the benchmarks. They print figures and ratios against a floor
+# measured in the same run; they are not pass/fail tests.
+# Usage: bash scripts/bench.sh [--keep FILE]   (--keep reuses/keeps the million-reading workbook)
+set -euo pipefail
+source "$(dirname "${BASH_SOURCE[0]}")/setup.sh"
+
+mw_install_packages
+mw_build "$MW_ROOT/build/release"
+
+echo "== rectifier model (target: 11-point plan and multiplier solve under 1 ms each)"
+"$MW_ROOT/build/release/bench/rectifier_bench"
+echo
+echo "== workbook of about 1,000,000 readings (targets: history < 5 ms, due list < 20 ms,"
+echo "   saving 40 readings < 20 ms, open with quick_check < 500 ms); building it takes minutes"
+"$MW_ROOT/build/release/bench/storage_workbook_bench" "$@"
