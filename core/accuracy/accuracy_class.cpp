@@ -1,9 +1,11 @@
 // Class index series and fiducial values of IEC 60051 analog instruments.
 #include "core/accuracy/accuracy_class.h"
+#include "core/units/quantity.h"
 
 #include <algorithm>
 #include <array>
 #include <cmath>
+#include <cstdio>
 #include <stdexcept>
 #include <string>
 
@@ -62,7 +64,7 @@ double fiducialValue(const ScaleRange& range) {
 double permissibleError(double classIndex, double fiducial) {
     if (!(classIndex > 0.0) || !std::isfinite(classIndex)) {
         throw std::invalid_argument("accuracy class: the class index must be > 0, got " +
-                                    std::to_string(classIndex));
+                                    formatPlain(classIndex));
     }
     return classIndex / 100.0 * fiducial;
 }

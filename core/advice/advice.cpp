@@ -9,7 +9,7 @@
 namespace mw {
 namespace {
 
-double meanError(const PointErrors& point) {
+double meanError(const PointErrors& point, std::size_t index, Unit unit) {
     if (point.errorUp && point.errorDown) {
         return 0.5 * (*point.errorUp + *point.errorDown);
     }
@@ -19,8 +19,8 @@ double meanError(const PointErrors& point) {
     if (point.errorDown) {
         return *point.errorDown;
     }
-    throw std::invalid_argument("advice: the point at applied " + std::to_string(point.applied) +
-                                " has no reading");
+    throw std::invalid_argument("advice: point " + std::to_string(index + 1) + " (applied " +
+                                formatEngineering(point.applied, 4, unit) + ") has no reading");
 }
 
 double correlation(const std::vector<double>& a, const std::vector<double>& b) {
@@ -50,7 +50,7 @@ bool looksLikeRectifier(const AdviceInput& input, const ZeroSpanFit& fit) {
             predicted[i].errorUp = (*input.predictedErrors)[i];
             predicted[i].errorDown.reset();
         }
-        return correlation(fitZeroSpan(predicted).residuals, fit.residuals) > 0.7;
+        return correlation(fitZeroSpan(predicted, input.unit).residuals, fit.residuals) > 0.7;
     }
     std::size_t lowest = 0;
     std::size_t largest = 0;
@@ -63,11 +63,11 @@ bool looksLikeRectifier(const AdviceInput& input, const ZeroSpanFit& fit) {
 
 } // namespace
 
-ZeroSpanFit fitZeroSpan(const std::vector<PointErrors>& points) {
+ZeroSpanFit fitZeroSpan(const std::vector<PointErrors>& points, Unit unit) {
     std::vector<double> x, y;
-    for (const PointErrors& point : points) {
-        x.push_back(point.applied);
-        y.push_back(meanError(point));
+    for (std::size_t i = 0; i < points.size(); ++i) {
+        x.push_back(points[i].applied);
+        y.push_back(meanError(points[i], i, unit));
     }
     const auto n = static_cast<double>(x.size());
     const double meanX = std::accumulate(x.begin(), x.end(), 0.0) / std::max(n, 1.0);
@@ -156,7 +156,7 @@ Advice adviseAdjustment(const AdviceInput& input) {
         throw std::invalid_argument("advice: the permissible error must be > 0");
     }
     Advice advice;
-    advice.fit = fitZeroSpan(input.points);
+    advice.fit = fitZeroSpan(input.points, input.unit);
     advice.hysteresis = maxHysteresis(input.points);
     advice.zeroEffect = std::fabs(advice.fit.zeroOffset);
     advice.spanEffect = std::fabs(advice.fit.spanFactor - 1.0) * std::fabs(input.upperLimit);

@@ -4,6 +4,7 @@
 #pragma once
 
 #include "core/model/vocabulary.h"
+#include "core/units/quantity.h"
 
 #include <optional>
 #include <string>
@@ -27,8 +28,9 @@ struct ZeroSpanFit {
     double nonlinearity = 0.0;     // largest |residual|
 };
 
-// Throws std::invalid_argument with fewer than two distinct applied values.
-ZeroSpanFit fitZeroSpan(const std::vector<PointErrors>& points);
+// Throws std::invalid_argument with fewer than two distinct applied values, or naming the point
+// (number and applied value in `unit`) that has no reading.
+ZeroSpanFit fitZeroSpan(const std::vector<PointErrors>& points, Unit unit = Unit::Volt);
 
 // Largest |down − up| over the points that have both directions (0 when none has).
 double maxHysteresis(const std::vector<PointErrors>& points);
@@ -46,6 +48,7 @@ std::string_view toText(LikelyCause cause); // stable word: "none", "zero", "spa
 
 struct AdviceInput {
     InstrumentKind kind = InstrumentKind::DcVoltmeter;
+    Unit unit = Unit::Volt;        // of the applied values and errors, for messages
     double upperLimit = 0.0;       // of the range, to size the span effect at full scale
     double permissibleError = 0.0; // ± limit at every point, for judging what is significant
     std::vector<PointErrors> points;

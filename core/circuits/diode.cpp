@@ -1,5 +1,6 @@
 // Shockley diode: presets, SPICE level-1 temperature scaling, explicit and Lambert-W solutions.
 #include "core/circuits/diode.h"
+#include "core/units/quantity.h"
 
 #include "core/circuits/physical_constants.h"
 
@@ -132,7 +133,7 @@ double wrightOmega(double x) {
         }
     }
     throw std::runtime_error("Wright omega: Newton iteration did not converge for x = " +
-                             std::to_string(x));
+                             formatPlain(x));
 }
 
 Diode::Diode(const DiodeParameters& parameters, double celsius)

@@ -157,7 +157,30 @@ Indication predictIndication(const RectifierMeter& meter, double range, const Wa
     Indication indication;
     const bool dc = meter.circuit().rectifier == Rectifier::None;
     indication.input_rms_volts = dc ? input.mean() : input.rms();
+    const double input_fraction = std::abs(indication.input_rms_volts) / range;
+    if (!(input_fraction <= kMaxInputFractionOfRange)) {
+        throw std::invalid_argument(
+            "rectifier design: an input of " +
+            formatEngineering(indication.input_rms_volts, 4, Unit::Volt) + " is " +
+            formatEngineering(100.0 * input_fraction, 4, Unit::Percent) + " of the " +
+            formatEngineering(range, 4, Unit::Volt) +
+            " range; the movement would be overloaded (predictions stop at " +
+            formatEngineering(100.0 * kMaxInputFractionOfRange, 3, Unit::Percent) + ")");
+    }
     indication.movement_amps = meter.average(input).movement_amps;
+    // A waveform the scale is not marked for (a square on a sine-marked scale) can drive more
+    // current than its rms suggests.
+    const double amps_fs = meter.circuit().movement_amps_fs;
+    if (std::abs(indication.movement_amps) > kMaxInputFractionOfRange * amps_fs) {
+        throw std::invalid_argument(
+            "rectifier design: an input of " +
+            formatEngineering(indication.input_rms_volts, 4, Unit::Volt) + " drives " +
+            formatEngineering(indication.movement_amps, 4, Unit::Ampere) +
+            " through the movement, " +
+            formatEngineering(100.0 * std::abs(indication.movement_amps) / amps_fs, 4,
+                              Unit::Percent) +
+            " of its full-scale current; the movement would be overloaded");
+    }
     indication.indicated = indication.movement_amps / meter.circuit().movement_amps_fs * range;
     indication.error_percent_of_range =
         (indication.indicated - indication.input_rms_volts) / range * 100.0;

@@ -46,8 +46,16 @@ struct Indication {
     double error_percent_of_range = 0.0;
 };
 
+// Largest input, as a share of the range, that predictIndication() accepts. Beyond it the
+// movement is overloaded: the pointer lies against its stop, so no indication exists to predict
+// and the input is far more likely a wrong range or a typing slip. 150 % is our own choice, well
+// above the 120 % overrange at which the resistor dissipation is checked (core/circuits/eseries.h).
+inline constexpr double kMaxInputFractionOfRange = 1.5;
+
 // What the meter shows for `input` on a scale that is linear in movement current and marked so
 // that full-scale current reads `range`. For Rectifier::None the input's mean is the DC value.
+// Throws std::invalid_argument when the input (rms; the mean for a DC voltmeter) or the
+// movement current it drives exceeds kMaxInputFractionOfRange of the range or of I_fs.
 Indication predictIndication(const RectifierMeter& meter, double range, const Waveform& input);
 
 // A test plan of true-rms values of one shape (e.g. 0 %, 10 % … 100 % of range).

@@ -2,6 +2,8 @@
 // instant with a bracketed Newton iteration, then averaged over the period.
 #include "core/circuits/rectifier_meter.h"
 
+#include "core/units/quantity.h"
+
 #include <cmath>
 #include <stdexcept>
 #include <string>
@@ -41,6 +43,19 @@ double positiveMeanSquare(const Waveform& waveform) {
         sum += v > 0.0 ? v * v : 0.0;
     }
     return sum / kSamples;
+}
+
+double diodeModelCelsius(double celsius) {
+    if (!std::isfinite(celsius) || celsius < kDiodeModelMinCelsius ||
+        celsius > kDiodeModelMaxCelsius) {
+        throw std::invalid_argument(
+            "rectifier meter: an operating temperature of " +
+            formatEngineering(celsius, 4, Unit::DegreeCelsius) + " lies outside " +
+            formatEngineering(kDiodeModelMinCelsius, 3, Unit::DegreeCelsius) + " … " +
+            formatEngineering(kDiodeModelMaxCelsius, 3, Unit::DegreeCelsius) +
+            ", the range in which the diode model's temperature scaling is meant to hold");
+    }
+    return celsius;
 }
 
 } // namespace
@@ -102,7 +117,7 @@ RectifierMeter::RectifierMeter(const RectifierCircuit& circuit, IdealDiodes idea
 RectifierMeter::RectifierMeter(const RectifierCircuit& circuit, const DiodeParameters& diode,
                                double celsius)
     : circuit_(circuit)
-    , diode_(Diode(diode, celsius)) {
+    , diode_(Diode(diode, diodeModelCelsius(celsius))) {
     validate(circuit_);
 }
 
@@ -228,7 +243,7 @@ RectifierMeter::Sample RectifierMeter::solveSample(double volts, double start_am
         p = next;
     }
     throw std::runtime_error("rectifier meter: the circuit equation did not converge at " +
-                             std::to_string(volts) + " V");
+                             formatEngineering(volts, 6, Unit::Volt));
 }
 
 InstantSolution RectifierMeter::solveAt(double volts) const {

@@ -67,9 +67,18 @@ struct PeriodAverage {
     int samples = 0;                  // samples per period used (0: closed form)
 };
 
+// Operating temperatures at which the Shockley model with SPICE level-1 temperature scaling is
+// taken as meaningful for the rectifier's diodes: −55 °C … +150 °C, the junction range silicon
+// small-signal diode data sheets commonly state (common practice; figures from memory). Outside
+// it the preset parameters and the XTI/EG scaling are extrapolated beyond what they describe.
+inline constexpr double kDiodeModelMinCelsius = -55.0;
+inline constexpr double kDiodeModelMaxCelsius = 150.0;
+
 class RectifierMeter {
 public:
     RectifierMeter(const RectifierCircuit& circuit, IdealDiodes ideal);
+    // Throws std::invalid_argument when `celsius` lies outside kDiodeModelMinCelsius …
+    // kDiodeModelMaxCelsius, saying why.
     RectifierMeter(const RectifierCircuit& circuit, const DiodeParameters& diode, double celsius);
 
     const RectifierCircuit& circuit() const { return circuit_; }

@@ -1,9 +1,11 @@
 // Decision rules of ILAC G8:09/2019 and conformance probability of JCGM 106:2012.
 #include "core/decision/decision.h"
+#include "core/units/quantity.h"
 
 #include "core/uncertainty/distributions.h"
 
 #include <cmath>
+#include <cstdio>
 #include <limits>
 #include <stdexcept>
 #include <string>
@@ -35,7 +37,7 @@ double guardBand(const DecisionSettings& settings, double expandedU) {
     }
     if (!(settings.guardFactor >= 0.0) || !std::isfinite(settings.guardFactor)) {
         throw std::invalid_argument("decision: the guard-band factor r must be >= 0, got " +
-                                    std::to_string(settings.guardFactor));
+                                    formatPlain(settings.guardFactor));
     }
     return settings.guardFactor * expandedU;
 }

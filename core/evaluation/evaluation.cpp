@@ -28,16 +28,36 @@ double mean(const std::vector<double>& values) {
     return std::accumulate(values.begin(), values.end(), 0.0) / static_cast<double>(values.size());
 }
 
+void requireOnScale(const EvaluationInput& input, std::size_t index, double applied) {
+    const double lower = input.range.lower;
+    const double upper = input.range.upper;
+    // A hair of slack so that a point exactly at the allowance is not refused by rounding.
+    const double allowance = (kScaleEndAllowance + 1e-9) * (upper - lower);
+    if (applied >= lower - allowance && applied <= upper + allowance) {
+        return;
+    }
+    const auto show = [&input](double value) {
+        return formatEngineering(value, 4, input.unit);
+    };
+    throw std::invalid_argument(
+        "evaluation: reading " + std::to_string(index + 1) + " has an applied value of " +
+        show(applied) + ", outside the range's scale " + show(lower) + " … " + show(upper) +
+        " (by more than " + formatEngineering(100.0 * kScaleEndAllowance, 2, Unit::Percent) +
+        " of the span)");
+}
+
 void validateReadings(const EvaluationInput& input) {
     if (input.readings.empty()) {
         throw std::invalid_argument("evaluation: there are no readings");
     }
+    fiducialValue(input.range); // refuses limits that are not finite or not in order
     for (std::size_t i = 0; i < input.readings.size(); ++i) {
         const EvaluationReading& reading = input.readings[i];
         if (!std::isfinite(reading.applied) || !std::isfinite(reading.indicated)) {
             throw std::invalid_argument("evaluation: reading " + std::to_string(i + 1) +
                                         " has a value that is not a finite number");
         }
+        requireOnScale(input, i, reading.applied);
     }
     if (!(input.readabilityFraction > 0.0 && input.readabilityFraction <= 1.0)) {
         throw std::invalid_argument("evaluation: readability must be a fraction of a division "
@@ -157,6 +177,8 @@ PointResult evaluatePoint(const EvaluationInput& input, const PointGroup& group,
     point.budget = evaluateBudget(point.components, input.probability);
 
     const ToleranceInterval tolerance{-limit, limit};
+    // The rounded-up U rather than the unrounded one: it is the larger (never narrows the guard
+    // band) and it is the number printed beside the decision (see PointResult).
     const double expanded = point.budget.expandedRounded;
     point.tur = testUncertaintyRatio(tolerance.lower, tolerance.upper, expanded);
     point.turBelowMinimum = point.tur < kMinimumTur;
@@ -176,6 +198,7 @@ void addAdvice(const EvaluationInput& input, EvaluationResult& result) {
     }
     AdviceInput adviceInput;
     adviceInput.kind = input.kind;
+    adviceInput.unit = input.unit;
     adviceInput.upperLimit = std::max(std::fabs(input.range.lower), std::fabs(input.range.upper));
     adviceInput.permissibleError = result.permissibleError;
     adviceInput.points = errors;

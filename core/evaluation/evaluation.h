@@ -86,8 +86,10 @@ struct PointResult {
     double permissibleError = 0.0; // ± limit
     std::vector<UncertaintyComponent> components;
     BudgetResult budget;
-    // TUR and the decision use the expanded uncertainty as reported (two significant digits),
-    // so that a reader can redo them from the printed numbers.
+    // TUR, guard band and decision use the expanded uncertainty as reported, rounded UP to two
+    // significant digits (budget.expandedRounded). That value is never below the unrounded U,
+    // so the guard band is never narrowed and the TUR never flattered by rounding, and a reader
+    // can redo every decision from the printed numbers.
     double tur = 0.0;
     bool turBelowMinimum = false; // TUR < 4:1
     Outcome decision = Outcome::Pass;
@@ -106,6 +108,12 @@ struct EvaluationResult {
     std::optional<ResistorChoice> correctedChoice; // nearest standard value and series trim
     std::optional<ResistorDeviation> resistorDeviation;
 };
+
+// Readings must lie on the range's scale: an applied value beyond lower … upper by more than
+// kScaleEndAllowance of the span is refused (a 20 V reading on a 10 V range is a wrong range or a
+// typing slip, never a point to pass). The allowance lets a cardinal point at either end be set
+// slightly beyond the mark, as a standard's setting resolution requires.
+inline constexpr double kScaleEndAllowance = 0.01;
 
 // Throws std::invalid_argument naming the input (and the reading number, 1-based) at fault.
 EvaluationResult evaluateRange(const EvaluationInput& input);

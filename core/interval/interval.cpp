@@ -1,4 +1,5 @@
-// Staircase interval adjustment (ILAC-G24 Method 1, NCSLI RP-1 method A1 step sizes).
+// Staircase interval adjustment: ILAC-G24 method 1 rule, NCSL RP-1 A1 step form, our own b and
+// keep zone (see interval.h for which is which).
 #include "core/interval/interval.h"
 
 #include <algorithm>
@@ -14,9 +15,15 @@ void validate(int currentDays, const std::vector<AsFoundRecord>& history,
     if (currentDays < 1) {
         throw std::invalid_argument("interval: the current interval must be at least one day");
     }
-    if (!(settings.lengthenFraction > 0.0) || !(settings.marginFraction > 0.0) ||
-        settings.minimumDays < 1 || settings.maximumDays < settings.minimumDays) {
-        throw std::invalid_argument("interval: staircase settings out of range");
+    if (!(settings.lengthenFraction > 0.0) || !std::isfinite(settings.lengthenFraction)) {
+        throw std::invalid_argument("interval: the lengthening fraction a must be > 0");
+    }
+    if (!(settings.marginFraction > 0.0 && settings.marginFraction <= 1.0)) {
+        throw std::invalid_argument("interval: the keep-zone share of the limit must lie in "
+                                    "(0, 1]; 1 turns the zone off");
+    }
+    if (settings.minimumDays < 1 || settings.maximumDays < settings.minimumDays) {
+        throw std::invalid_argument("interval: the bounds need 1 <= minimum days <= maximum days");
     }
     for (std::size_t i = 1; i < history.size(); ++i) {
         if (history[i].date < history[i - 1].date) {
@@ -64,11 +71,12 @@ IntervalRecommendation recommendInterval(int currentDays, const std::vector<AsFo
     result.observedReliability =
         result.total == 0 ? 0.0 : static_cast<double>(result.inToleranceCount) / result.total;
     result.recommendedDays = static_cast<int>(std::lround(interval));
-    char text[320];
+    char text[480];
     std::snprintf(text, sizeof text,
-                  "staircase method (ILAC-G24:2007 / OIML D 10:2007 method 1) with NCSLI RP-1 "
-                  "simple-response steps: +%.0f %% after an in-tolerance result within %.0f %% of "
-                  "the limit, -%.1f %% after an out-of-tolerance result (reliability target "
+                  "staircase (ILAC-G24:2007 / OIML D 10:2007 method 1) with NCSL RP-1 A1 "
+                  "multiplicative steps: +%.0f %% after an in-tolerance result within %.0f %% of "
+                  "the limit, kept above that (our own keep zone), -%.1f %% after an "
+                  "out-of-tolerance result (our own step, stationary at a reliability target of "
                   "%.0f %%)",
                   settings.lengthenFraction * 100.0, settings.marginFraction * 100.0, b * 100.0,
                   settings.reliabilityTarget * 100.0);

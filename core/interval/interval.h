@@ -1,6 +1,6 @@
-// Recalibration interval from an instrument's history of as-found results, by the staircase
-// ("automatic adjustment") method of ILAC-G24:2007 / OIML D 10:2007 Method 1 with the step
-// sizes of the "simple response" method A1 of NCSLI RP-1.
+// Recalibration interval from an instrument's history of as-found results by a staircase: the
+// rule of ILAC-G24:2007 / OIML D 10:2007 method 1, the step form of NCSL RP-1 method A1, and two
+// refinements of our own (the shortening step b and a "keep" zone), each labelled below.
 #pragma once
 
 #include <chrono>
@@ -15,17 +15,29 @@ struct AsFoundRecord {
     double worstFractionOfLimit = 0.0; // largest |error| / permissible error of that calibration
 };
 
+// Where each part comes from:
+//  - ILAC-G24:2007 / OIML D 10:2007 method 1 ("staircase"): after each calibration the interval
+//    is lengthened when the instrument was found in tolerance and shortened when it was found
+//    out of tolerance. The documents give the rule, not the step sizes.
+//  - NCSL RP-1 method A1 ("simple response"): the steps are multiplicative, I ← I (1 + a) when
+//    in tolerance and I ← I (1 − b) when out, with a and b chosen by the laboratory.
+//  - Our own derivation: b from a and the reliability target R (shortenFraction below).
+//  - Our own refinement: a result in tolerance but above marginFraction of the limit keeps the
+//    interval unchanged (neither step). The 80 % default is from memory: we recall it as the
+//    example share of the tolerance in the method 1 text, unconfirmed; the keep zone itself is
+//    ours. marginFraction = 1 turns the zone off and gives the plain method 1 staircase.
 struct StaircaseSettings {
     double lengthenFraction = 0.10;  // a: I ← I (1 + a) after a comfortable in-tolerance result
     double reliabilityTarget = 0.90; // R: end-of-period in-tolerance probability aimed at
-    double marginFraction = 0.80;    // in tolerance but above this share of the limit: keep I
+    double marginFraction = 0.80;    // our keep zone: in tolerance above this share of the limit
     int minimumDays = 30;
     int maximumDays = 1095;
 };
 
-// b in I ← I (1 − b) after an out-of-tolerance result. RP-1 A1 makes b a function of a and R;
-// we take the value for which the interval is stationary on average at reliability R:
-// R ln(1 + a) + (1 − R) ln(1 − b) = 0, i.e. b = 1 − (1 + a)^(−R/(1−R)).
+// b in I ← I (1 − b) after an out-of-tolerance result: our own derivation, not taken from
+// RP-1 or ILAC-G24. It is the b for which the interval is stationary on average when a fraction
+// R of results are in tolerance: R ln(1 + a) + (1 − R) ln(1 − b) = 0, so
+// b = 1 − (1 + a)^(−R/(1−R)).
 double shortenFraction(double lengthenFraction, double reliabilityTarget);
 
 enum class IntervalStepKind { Lengthen, Keep, Shorten };

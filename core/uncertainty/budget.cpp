@@ -70,13 +70,20 @@ double welchSatterthwaite(const std::vector<double>& contributions,
     return sumSquares * sumSquares / denominator;
 }
 
-double roundToSignificant(double value, int digits) {
+double roundUpToSignificant(double value, int digits) {
     if (value == 0.0 || !std::isfinite(value)) {
         return value;
     }
-    const int exponent = static_cast<int>(std::floor(std::log10(std::fabs(value))));
+    if (digits < 1) {
+        throw std::invalid_argument("rounding: at least one significant digit is needed");
+    }
+    const double magnitude = std::fabs(value);
+    const int exponent = static_cast<int>(std::floor(std::log10(magnitude)));
     const double scale = std::pow(10.0, digits - 1 - exponent);
-    return std::round(value * scale) / scale;
+    const double scaled = magnitude * scale;
+    const double nearest = std::round(scaled);
+    const double up = std::fabs(scaled - nearest) <= 1e-9 * scaled ? nearest : std::ceil(scaled);
+    return std::copysign(up / scale, value);
 }
 
 BudgetResult evaluateBudget(const std::vector<UncertaintyComponent>& components,
@@ -96,7 +103,7 @@ BudgetResult evaluateBudget(const std::vector<UncertaintyComponent>& components,
         result.combined > 0.0 ? welchSatterthwaite(result.contributions, dofs) : kInfiniteDof;
     result.coverageFactor = coverageFactor(result.dofEffective, probability);
     result.expanded = result.coverageFactor * result.combined;
-    result.expandedRounded = roundToSignificant(result.expanded, 2);
+    result.expandedRounded = roundUpToSignificant(result.expanded, 2);
     return result;
 }
 

@@ -1,6 +1,6 @@
 // An uncertainty budget of named components and its evaluation by JCGM 100:2008 (GUM): combined
 // standard uncertainty, Welch–Satterthwaite effective degrees of freedom, coverage factor from
-// Student's t and the expanded uncertainty rounded as the GUM recommends.
+// Student's t and the expanded uncertainty rounded up to two significant digits.
 #pragma once
 
 #include "core/uncertainty/distributions.h"
@@ -42,7 +42,10 @@ struct BudgetResult {
     double dofEffective = kInfiniteDof; // ν_eff before truncation
     double coverageFactor = 2.0;        // k = t_p(⌊ν_eff⌋)
     double expanded = 0.0;              // U = k u_c, unrounded
-    double expandedRounded = 0.0;       // U to two significant digits (JCGM 100:2008 7.2.6)
+    // U as reported: two significant digits, rounded UP (JCGM 100:2008 7.2.6 permits rounding
+    // up; calibration certificates never round an uncertainty down, common practice). Never
+    // smaller than `expanded`; the value guard bands, decisions and TUR use.
+    double expandedRounded = 0.0;
 };
 
 // Evaluates the budget; throws std::invalid_argument naming the first bad component.
@@ -53,8 +56,11 @@ BudgetResult evaluateBudget(const std::vector<UncertaintyComponent>& components,
 double welchSatterthwaite(const std::vector<double>& contributions,
                           const std::vector<double>& dofs);
 
-// Rounds to `digits` significant digits, nearest (JCGM 100:2008 7.2.6 allows at most two).
-double roundToSignificant(double value, int digits);
+// Rounds the magnitude UP (away from zero) to `digits` significant digits: 0.0231 -> 0.024,
+// 0.023 stays 0.023. A value within 1e-9 (relative) of a representable digit string is taken
+// as that string, so binary noise (0.023 stored as 0.0230000000000001) does not bump it.
+// JCGM 100:2008 7.2.6 allows at most two digits and rounding up rather than to the nearest.
+double roundUpToSignificant(double value, int digits);
 
 // Type A evaluation (JCGM 100:2008 4.2): experimental standard deviation of the mean of the
 // observations, with n − 1 degrees of freedom. nullopt with fewer than two observations.

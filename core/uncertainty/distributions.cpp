@@ -2,8 +2,11 @@
 // that coverage factors need nothing beyond the standard library.
 #include "core/uncertainty/distributions.h"
 
+#include "core/units/quantity.h"
+
 #include <algorithm>
 #include <cmath>
+#include <cstdio>
 #include <limits>
 #include <stdexcept>
 #include <string>
@@ -43,8 +46,8 @@ double betaFraction(double a, double b, double x) {
             }
         }
     }
-    throw std::runtime_error("incomplete beta function did not converge for a = " +
-                             std::to_string(a) + ", b = " + std::to_string(b));
+    throw std::runtime_error("incomplete beta function did not converge for a = " + formatPlain(a) +
+                             ", b = " + formatPlain(b));
 }
 
 // I_x(a, b) given both x and y = 1 − x, so that x close to 1 keeps its precision.
@@ -76,7 +79,8 @@ double studentUpperTail(double t, double dof) {
 void requireProbability(double probability, const char* what) {
     if (!(probability > 0.0 && probability < 1.0)) {
         throw std::domain_error(std::string(what) + ": probability must lie strictly between 0 " +
-                                "and 1, got " + std::to_string(probability));
+                                "and 1 (0 % and 100 %), got " +
+                                formatEngineering(100.0 * probability, 4, Unit::Percent));
     }
 }
 
@@ -134,7 +138,7 @@ double regularizedIncompleteBeta(double a, double b, double x) {
 double studentTCdf(double t, double dof) {
     if (!(dof > 0.0)) {
         throw std::domain_error("Student t: degrees of freedom must be positive, got " +
-                                std::to_string(dof));
+                                formatPlain(dof));
     }
     if (dof >= kDofTreatedAsInfinite) {
         return normalCdf(t);
@@ -147,7 +151,7 @@ double studentTCoverage(double probability, double dof) {
     requireProbability(probability, "Student t coverage");
     if (!(dof > 0.0)) {
         throw std::domain_error("Student t: degrees of freedom must be positive, got " +
-                                std::to_string(dof));
+                                formatPlain(dof));
     }
     const double tail = 0.5 * (1.0 - probability);
     if (dof >= kDofTreatedAsInfinite) {

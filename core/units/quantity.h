@@ -64,6 +64,10 @@ double parseValue(std::string_view text, Unit expected, const ParseOptions& opti
 // significantDigits is clamped to 1..17.
 std::string formatEngineering(double value, int significantDigits, Unit unit = Unit::Dimensionless);
 
+// Dimensionless numbers in messages (probabilities, factors, degrees of freedom): six significant
+// digits without an SI prefix, so 1e-9 does not print as 0.000000 and 0.5 not as "500 m".
+std::string formatPlain(double value);
+
 std::string_view unitSymbol(Unit unit);
 
 // What kind of value a unit measures, for messages: "a voltage", "a resistance" ...

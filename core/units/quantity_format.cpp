@@ -152,4 +152,10 @@ std::string_view unitDescription(Unit unit) {
     return "a value";
 }
 
+std::string formatPlain(double value) {
+    char text[32];
+    std::snprintf(text, sizeof text, "%.6g", value);
+    return text;
+}
+
 } // namespace mw

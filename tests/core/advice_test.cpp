@@ -107,3 +107,13 @@ TEST_CASE("a fit needs two distinct applied values") {
     CHECK_THROWS_AS(fitZeroSpan({{5.0, 0.1, {}}, {5.0, 0.2, {}}}), std::invalid_argument);
     CHECK_THROWS_WITH(fitZeroSpan({{5.0, {}, {}}, {6.0, 0.2, {}}}), Catch::Contains("no reading"));
 }
+
+TEST_CASE("a point without readings is named with its applied value in its unit") {
+    // Small values must not print as 0.000000 (std::to_string): 12 µA on an ammeter range.
+    const std::vector<PointErrors> points{{0.0, 0.1e-6, {}}, {12e-6, {}, {}}};
+    CHECK_THROWS_WITH(fitZeroSpan(points, Unit::Ampere), Catch::Contains("point 2") &&
+                                                             Catch::Contains("12.00 µA") &&
+                                                             Catch::Contains("no reading"));
+    AdviceInput input = adviceFor(InstrumentKind::DcVoltmeter, {{0.0, 0.0, {}}, {2.5e-3, {}, {}}});
+    CHECK_THROWS_WITH(adviseAdjustment(input), Catch::Contains("2.500 mV"));
+}

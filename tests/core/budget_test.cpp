@@ -61,7 +61,10 @@ TEST_CASE("GUM H.1 end-gauge budget is reproduced to its printed digits") {
     CHECK(result.combined == mwtest::absolute(32.0, 0.5));         // H.1: u_c = 32 nm
     CHECK(result.dofEffective == mwtest::absolute(16.7, 0.05));    // H.1: ν_eff = 16.7
     CHECK(result.coverageFactor == mwtest::absolute(2.92, 0.005)); // H.1: t_99(16) = 2.92
-    CHECK(result.expandedRounded == mwtest::absolute(93.0, 1e-9)); // H.1: U_99 = 93 nm
+    // H.1: U_99 = 93 nm. Unrounded k·u_c is 92.6 nm (computed), so rounding up (7.2.6)
+    // reproduces the printed 93 nm as rounding to the nearest does.
+    CHECK(result.expanded == mwtest::absolute(92.62, 0.005));
+    CHECK(result.expandedRounded == mwtest::absolute(93.0, 1e-9));
 }
 
 TEST_CASE("GUM G.4.1 relative budget with Welch-Satterthwaite") {
@@ -86,12 +89,48 @@ TEST_CASE("Welch-Satterthwaite ignores components with infinite dof") {
     CHECK(std::isinf(welchSatterthwaite({3.0, 4.0}, {kInfiniteDof, kInfiniteDof})));
 }
 
-TEST_CASE("expanded uncertainty is rounded to two significant digits") {
-    // JCGM 100:2008 7.2.6: at most two significant digits.
-    CHECK(roundToSignificant(92.61, 2) == mwtest::relative(93.0, 1e-12));
-    CHECK(roundToSignificant(0.0012345, 2) == mwtest::relative(0.0012, 1e-12));
-    CHECK(roundToSignificant(-4.56, 2) == mwtest::relative(-4.6, 1e-12));
-    CHECK(roundToSignificant(0.0, 2) == 0.0);
+TEST_CASE("expanded uncertainty is rounded UP to two significant digits") {
+    // JCGM 100:2008 7.2.6: at most two significant digits, and rounding up rather than to the
+    // nearest digit is allowed (its example, from memory: u_c = 10.47 mΩ reported as 11 mΩ).
+    // Never rounding an uncertainty down is common practice on calibration certificates.
+    CHECK(roundUpToSignificant(10.47, 2) == mwtest::relative(11.0, 1e-12));
+    CHECK(roundUpToSignificant(0.0234, 2) == mwtest::relative(0.024, 1e-12)); // nearest: 0.023
+    CHECK(roundUpToSignificant(92.61, 2) == mwtest::relative(93.0, 1e-12));
+    CHECK(roundUpToSignificant(0.0012345, 2) == mwtest::relative(0.0013, 1e-12));
+    CHECK(roundUpToSignificant(9.91, 2) == mwtest::relative(10.0, 1e-12));  // into the next decade
+    CHECK(roundUpToSignificant(-4.51, 2) == mwtest::relative(-4.6, 1e-12)); // magnitude up
+    CHECK(roundUpToSignificant(0.0, 2) == 0.0);
+    // Values already at two digits stay, binary noise included (0.1 + 0.2 = 0.30000000000000004).
+    CHECK(roundUpToSignificant(0.023, 2) == mwtest::relative(0.023, 1e-12));
+    CHECK(roundUpToSignificant(0.1 + 0.2, 2) == mwtest::relative(0.30, 1e-12));
+    CHECK(roundUpToSignificant(2.0 * 0.0115, 2) == mwtest::relative(0.023, 1e-12));
+    CHECK_THROWS_AS(roundUpToSignificant(1.0, 0), std::invalid_argument);
+}
+
+TEST_CASE("a coverage probability out of range is refused in percent") {
+    UncertaintyComponent component;
+    component.name = "half-width";
+    component.value = 1.0;
+    CHECK_THROWS_WITH(evaluateBudget({component}, 1.5),
+                      Catch::Contains("probability") && Catch::Contains("150.0 %"));
+    CHECK_THROWS_WITH(evaluateBudget({component}, -1e-12), Catch::Contains("-1.000e-10 %"));
+}
+
+TEST_CASE("the reported U of a budget is never below k times u_c") {
+    // JCGM 100:2008 4.3.7: a rectangular half-width a gives u = a/√3; k = 2 for ν = ∞
+    // (Table G.2, 95.45 %). Half-widths of our own choosing.
+    for (const double halfWidth : {0.0101, 0.02022, 0.3333, 1.0, 7.77, 123.4}) {
+        UncertaintyComponent component;
+        component.name = "half-width";
+        component.value = halfWidth;
+        const BudgetResult result = evaluateBudget({component});
+        CHECK(result.expanded == mwtest::relative(2.0 * halfWidth / std::sqrt(3.0), 1e-9));
+        CHECK(result.expandedRounded >= result.expanded);
+        CHECK(result.expandedRounded ==
+              mwtest::relative(roundUpToSignificant(result.expanded, 2), 1e-15));
+        // Two digits: the step is at most one unit of the second digit.
+        CHECK(result.expandedRounded - result.expanded < 0.1 * result.expandedRounded);
+    }
 }
 
 TEST_CASE("Type A from repeated observations") {

@@ -54,6 +54,10 @@ TEST_CASE("the guard band scales with r") {
     CHECK(decide(1.3, 0.5, kTolerance, half) == Outcome::Fail);
     const DecisionSettings negative{DecisionRule::GuardedAcceptance, -1.0};
     CHECK_THROWS_AS(decide(0.0, 0.5, kTolerance, negative), std::invalid_argument);
+    // The message shows the factor as given, even a tiny one (not "-0.000000").
+    const DecisionSettings tiny{DecisionRule::GuardedAcceptance, -2e-9};
+    CHECK_THROWS_WITH(decide(0.0, 0.5, kTolerance, tiny),
+                      Catch::Contains("guard-band factor") && Catch::Contains("-2e-09"));
 }
 
 TEST_CASE("worse outcome orders pass, conditional pass, conditional fail, fail") {

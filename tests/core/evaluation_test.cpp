@@ -55,16 +55,18 @@ TEST_CASE("errors per point in units, % of reading and % of fiducial value") {
 TEST_CASE("per-point budget: reference spec and readability") {
     // Reference ±(0.02 % rdg + 0.01 % rng) at 10 V = 3 mV rectangular; readability 1/5 of a
     // 0.2 V division -> half-width 0.02 V rectangular (JCGM 100:2008 4.3.7); k = 2 for ν = ∞
-    // (Table G.2); U to two digits (7.2.6): 2·√(0.02² + 0.003²)/√3 = 0.02335 -> 0.023 V.
+    // (Table G.2); U to two digits rounded up (7.2.6): 2·√(0.02² + 0.003²)/√3 = 0.02335 ->
+    // 0.024 V (to the nearest it would be 0.023 V).
     const PointResult top = evaluateRange(syntheticMeter()).points[5];
     REQUIRE(top.components.size() == 2);
     const double uc = std::sqrt(0.02 * 0.02 + 0.003 * 0.003) / std::sqrt(3.0);
     CHECK(top.budget.combined == mwtest::relative(uc, 1e-12));
     CHECK(std::isinf(top.budget.dofEffective));
     CHECK(top.budget.coverageFactor == mwtest::relative(2.0, 1e-9));
-    CHECK(top.budget.expandedRounded == mwtest::relative(0.023, 1e-12));
-    // ANSI/NCSL Z540.3 Handbook: TUR = 0.30 V / (2 × 0.023 V).
-    CHECK(top.tur == mwtest::relative(0.15 / 0.023, 1e-12));
+    CHECK(top.budget.expanded == mwtest::relative(2.0 * uc, 1e-9));
+    CHECK(top.budget.expandedRounded == mwtest::relative(0.024, 1e-12));
+    // ANSI/NCSL Z540.3 Handbook: TUR = 0.30 V / (2 × U), with the reported U = 0.024 V.
+    CHECK(top.tur == mwtest::relative(0.15 / 0.024, 1e-12));
     CHECK_FALSE(top.turBelowMinimum);
 }
 
@@ -80,7 +82,7 @@ TEST_CASE("simple acceptance: the top point fails and so does the range") {
 }
 
 TEST_CASE("guarded acceptance with w = U gives conditional outcomes near the limit") {
-    // ILAC G8:09/2019 4.2.3 with w = U = 0.023 V: 0.14 V at 8 V lies within U below the limit
+    // ILAC G8:09/2019 4.2.3 with w = U = 0.024 V: 0.14 V at 8 V lies within U below the limit
     // (conditional pass); 0.16 V lies within U above it (conditional fail).
     EvaluationInput input = syntheticMeter();
     input.decision = {DecisionRule::GuardedAcceptance, 1.0};
@@ -154,6 +156,8 @@ TEST_CASE("bad input names what is wrong") {
     input = syntheticMeter();
     input.classIndex = -1.0;
     CHECK_THROWS_WITH(evaluateRange(input), Catch::Contains("class index"));
+    input.classIndex = -1e-9; // shown as given, not as -0.000000
+    CHECK_THROWS_WITH(evaluateRange(input), Catch::Contains("got -1e-09"));
 }
 
 TEST_CASE("a warm room adds the coil model's temperature effect") {
@@ -172,4 +176,56 @@ TEST_CASE("a warm room adds the coil model's temperature effect") {
     CHECK(top.components[2].value == mwtest::relative(10.0 * std::fabs(shift), 1e-9));
     // About ¼ of copper's 0.393 %/K over 5 K (computed: α_eff = 0.000983 /K).
     CHECK(top.components[2].value == mwtest::relative(10.0 * 0.000983 * 5.0, 0.01));
+}
+
+TEST_CASE("a result near the limit is judged with the rounded-up U") {
+    // ILAC G8:09/2019 4.2.3, w = U. Same budget as above at 10 V: k·u_c = 0.02335 V, reported
+    // 0.024 V (JCGM 100:2008 7.2.6, rounded up). An error of 0.1263 V lies 0.0237 V inside the
+    // 0.15 V limit: clear of a 0.023 V band (nearest rounding) or a 0.02335 V band (unrounded),
+    // within the 0.024 V band. The conservative value must decide.
+    EvaluationInput input = syntheticMeter();
+    input.decision = {DecisionRule::GuardedAcceptance, 1.0};
+    input.readings = {{10.0, 10.1263, Direction::Up, 1, -1}};
+    const PointResult point = evaluateRange(input).points.at(0);
+    REQUIRE(point.budget.expandedRounded == mwtest::relative(0.024, 1e-12));
+    const ToleranceInterval tolerance{-0.15, 0.15};
+    REQUIRE(decide(point.error, 0.023, tolerance, input.decision) == Outcome::Pass);
+    REQUIRE(decide(point.error, point.budget.expanded, tolerance, input.decision) == Outcome::Pass);
+    CHECK(point.decision == Outcome::ConditionalPass);
+    // ANSI/NCSL Z540.3 Handbook TUR from the same U: 0.30 / 0.048 = 6.25, not 0.30 / 0.046.
+    CHECK(point.tur == mwtest::relative(6.25, 1e-12));
+}
+
+TEST_CASE("an applied value off the range's scale is refused naming the reading") {
+    // A 20 V reading on a 0-10 V range cannot be a test point of that range.
+    EvaluationInput input = syntheticMeter();
+    input.readings.push_back({20.0, 20.1, Direction::Up, 1, -1});
+    CHECK_THROWS_AS(evaluateRange(input), std::invalid_argument);
+    CHECK_THROWS_WITH(evaluateRange(input), Catch::Contains("reading 13") &&
+                                                Catch::Contains("20.00 V") &&
+                                                Catch::Contains("0.000 V … 10.00 V"));
+    input = syntheticMeter();
+    input.readings[0].applied = -0.5;
+    CHECK_THROWS_WITH(evaluateRange(input), Catch::Contains("reading 1"));
+    // Within 1 % of the span beyond either end: a cardinal point set just past the mark.
+    input = syntheticMeter();
+    input.readings.push_back({10.1, 10.2, Direction::Up, 1, -1});
+    input.readings.push_back({-0.1, -0.05, Direction::Up, 1, -1});
+    CHECK_NOTHROW(evaluateRange(input));
+    input.readings.back().applied = -0.11;
+    CHECK_THROWS_WITH(evaluateRange(input), Catch::Contains("reading 14"));
+}
+
+TEST_CASE("a centre-zero range accepts both signs up to its limits") {
+    // Zero inside the scale, -5 … +5 mA (IEC 60051-1 scale type); 1 % of the 10 mA span.
+    EvaluationInput input;
+    input.unit = Unit::Ampere;
+    input.range = {-5e-3, 5e-3, ScaleType::ZeroInside, {}};
+    input.classIndex = 2.5;
+    input.readings = {{-5e-3, -5.01e-3, Direction::Up, 1, -1},
+                      {5.1e-3, 5.1e-3, Direction::Up, 1, -1}};
+    CHECK(evaluateRange(input).points.size() == 2);
+    input.readings.push_back({5.2e-3, 5.2e-3, Direction::Up, 1, -1});
+    CHECK_THROWS_WITH(evaluateRange(input),
+                      Catch::Contains("reading 3") && Catch::Contains("5.200 mA"));
 }

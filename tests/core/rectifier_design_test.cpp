@@ -134,3 +134,33 @@ TEST_CASE("a range below what the diodes need is refused with the reason") {
     CHECK_THROWS_WITH(solveMultiplier(prototype, 0.5), Catch::Contains("below what the movement"));
     CHECK_THROWS_AS(predictIndication(prototype, 0.0, Waveform::sine(1.0)), std::invalid_argument);
 }
+
+TEST_CASE("an input far beyond the range is refused: the movement would be overloaded") {
+    // Helfrick & Cooper Example 4-9 circuit (1 mA, 50 Ω, ideal bridge) with the multiplier for
+    // 10 V rms from the exact factor 2√2/π. Our limit: 150 % of the range.
+    const RectifierCircuit bridge{Rectifier::Bridge, 1e-3, 50.0, 0.0};
+    const RectifierMeter meter(
+        {Rectifier::Bridge, 1e-3, 50.0,
+         idealMultiplierOhms(bridge, 10.0, averagePerRms(Rectifier::Bridge))},
+        IdealDiodes{});
+    CHECK(predictIndication(meter, 10.0, Waveform::withRms(WaveShape::Sine, 15.0)).indicated ==
+          mwtest::relative(15.0, 1e-9));
+    CHECK_THROWS_AS(predictIndication(meter, 10.0, Waveform::withRms(WaveShape::Sine, 20.0)),
+                    std::invalid_argument);
+    CHECK_THROWS_WITH(predictIndication(meter, 10.0, Waveform::withRms(WaveShape::Sine, 20.0)),
+                      Catch::Contains("20.00 V") && Catch::Contains("200.0 %") &&
+                          Catch::Contains("10.00 V range") && Catch::Contains("overloaded"));
+    // A square wave of 14 V rms is under 150 % of the range, but its rectified average is
+    // 14 V against 0.9003 × 10 V for the sine the scale is marked for (form factors 1 and
+    // π/(2√2), common practice): 155.5 % of full-scale current.
+    CHECK_THROWS_WITH(predictIndication(meter, 10.0, Waveform::withRms(WaveShape::Square, 14.0)),
+                      Catch::Contains("155.5 %") && Catch::Contains("full-scale current"));
+    // A DC voltmeter is judged by the mean, either polarity (Helfrick & Cooper Example 4-3:
+    // 1 mA, 100 Ω, 9.9 kΩ for 10 V).
+    const RectifierMeter dc({Rectifier::None, 1e-3, 100.0, 9900.0}, IdealDiodes{});
+    CHECK_THROWS_WITH(predictIndication(dc, 10.0, Waveform::sineWithOffset(0.0, -20.0)),
+                      Catch::Contains("-20.00 V") && Catch::Contains("overloaded"));
+    const std::vector<double> plan{5.0, 10.0, 25.0};
+    CHECK_THROWS_WITH(predictTestPlan(meter, 10.0, plan, WaveShape::Sine),
+                      Catch::Contains("25.00 V"));
+}

@@ -179,3 +179,20 @@ TEST_CASE("bad circuits are refused with the part named") {
     const RectifierMeter meter(circuit(Rectifier::Bridge, 10.0), IdealDiodes{});
     CHECK_THROWS_AS(meter.solveAt(std::nan("")), std::invalid_argument);
 }
+
+TEST_CASE("operating temperatures outside the diode model's range are refused") {
+    // −55 °C … +150 °C: the junction range of silicon small-signal diode data sheets (common
+    // practice, figures from memory); the SPICE level-1 scaling is not meant beyond it.
+    const DiodeParameters silicon = diodePreset(DiodePreset::SmallSignalSilicon);
+    CHECK_NOTHROW(RectifierMeter(circuit(Rectifier::Bridge, 9000.0), silicon, -55.0));
+    CHECK_NOTHROW(RectifierMeter(circuit(Rectifier::Bridge, 9000.0), silicon, 150.0));
+    CHECK_THROWS_AS(RectifierMeter(circuit(Rectifier::Bridge, 9000.0), silicon, 150.5),
+                    std::invalid_argument);
+    CHECK_THROWS_WITH(RectifierMeter(circuit(Rectifier::HalfWave, 9000.0), silicon, 200.0),
+                      Catch::Contains("200.0 °C") && Catch::Contains("150 °C") &&
+                          Catch::Contains("temperature scaling"));
+    CHECK_THROWS_WITH(RectifierMeter(circuit(Rectifier::Bridge, 9000.0), silicon, -60.0),
+                      Catch::Contains("-60.00 °C") && Catch::Contains("-55.0 °C"));
+    CHECK_THROWS_AS(RectifierMeter(circuit(Rectifier::Bridge, 9000.0), silicon, std::nan("")),
+                    std::invalid_argument);
+}

@@ -36,3 +36,13 @@ TEST_CASE("deviation of a measured resistor from its computed value") {
     CHECK(compareResistor(100.0, 101.0, 1.0).withinTolerance); // on the tolerance
     CHECK_THROWS_AS(compareResistor(0.0, 1.0, 1.0), std::invalid_argument);
 }
+
+TEST_CASE("refusals show the value in its unit, small values included") {
+    // Values of our own choosing; the point is that 4.7 mΩ does not print as 0.004700.
+    CHECK_THROWS_WITH(correctedShuntOhms(-4.7e-3, 100.0, 1.0),
+                      Catch::Contains("shunt resistance") && Catch::Contains("-4.700 mΩ"));
+    CHECK_THROWS_WITH(correctedMultiplierOhms(9900.0, 100.0, 1e-9),
+                      Catch::Contains("span factor of 1e-09"));
+    CHECK_THROWS_WITH(correctedMultiplierOhms(9900.0, 100.0, -0.5),
+                      Catch::Contains("span factor") && Catch::Contains("-0.5"));
+}
