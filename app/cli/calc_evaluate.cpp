@@ -2,14 +2,14 @@
 // from a CSV of readings, with the same core function the bench screen uses.
 #include "app/cli/cli_support.h"
 #include "app/cli/command_table.h"
+#include "app/cli/readings_csv.h"
+#include "core/accuracy/accuracy_class.h"
 #include "core/evaluation/evaluation.h"
 #include "core/model/vocabulary.h"
 #include "core/uncertainty/distributions.h"
 
-#include <QFile>
 #include <QJsonArray>
 #include <QJsonObject>
-#include <QTextStream>
 
 #include <cmath>
 #include <limits>
@@ -87,132 +87,17 @@ int runCoverage(const QStringList& arguments) {
     return 0;
 }
 
-// --- readings CSV ---------------------------------------------------------------------------
-
-struct CsvColumns {
-    int applied = -1;
-    int indicated = -1;
-    int direction = -1;
-    int repeat = -1;
-};
-
-QStringList splitCsvLine(const QString& line) {
-    QStringList cells = line.split(QLatin1Char(','));
-    for (QString& cell : cells) {
-        cell = cell.trimmed();
-        if (cell.size() >= 2 && cell.startsWith(QLatin1Char('"')) &&
-            cell.endsWith(QLatin1Char('"'))) {
-            cell = cell.mid(1, cell.size() - 2).trimmed();
-        }
-    }
-    return cells;
-}
-
-CsvColumns readHeader(const QString& file, const QString& line) {
-    CsvColumns columns;
-    const QStringList names = splitCsvLine(line);
-    for (int i = 0; i < names.size(); ++i) {
-        const QString name = names[i].toLower();
-        int* slot = name == QStringLiteral("applied")     ? &columns.applied
-                    : name == QStringLiteral("indicated") ? &columns.indicated
-                    : name == QStringLiteral("direction") ? &columns.direction
-                    : name == QStringLiteral("repeat")    ? &columns.repeat
-                                                          : nullptr;
-        if (slot != nullptr) {
-            if (*slot >= 0) {
-                throw UsageError(
-                    QStringLiteral("%1 row 1: column \"%2\" appears twice").arg(file, names[i]));
-            }
-            *slot = i;
-        }
-    }
-    if (columns.applied < 0 || columns.indicated < 0) {
-        throw UsageError(QStringLiteral("%1 row 1: the header must name the columns applied and "
-                                        "indicated (optional: direction, repeat)")
-                             .arg(file));
-    }
-    return columns;
-}
-
-double cellValue(const QString& where, const QString& cell, Unit unit) {
-    if (cell.isEmpty()) {
-        throw UsageError(where + QStringLiteral(": empty"));
-    }
-    try {
-        return parseValue(cell.toStdString(), unit);
-    } catch (const QuantityError& error) {
-        throw UsageError(
-            QStringLiteral("%1 \"%2\": %3").arg(where, cell, QString::fromStdString(error.what())));
-    }
-}
-
-EvaluationReading readRow(const QString& file, int row, const QStringList& cells,
-                          const CsvColumns& columns, Unit unit) {
-    auto cellAt = [&cells](int column) {
-        return column >= 0 && column < cells.size() ? cells[column] : QString();
-    };
-    auto where = [&](const char* column) {
-        return QStringLiteral("%1 row %2, column %3").arg(file).arg(row).arg(QLatin1String(column));
-    };
-    EvaluationReading reading;
-    reading.applied = cellValue(where("applied"), cellAt(columns.applied), unit);
-    reading.indicated = cellValue(where("indicated"), cellAt(columns.indicated), unit);
-    const QString direction = cellAt(columns.direction).toLower();
-    if (direction == QStringLiteral("down")) {
-        reading.direction = Direction::Down;
-    } else if (!direction.isEmpty() && direction != QStringLiteral("up")) {
-        throw UsageError(where("direction") +
-                         QStringLiteral(" \"%1\": expected up or down").arg(direction));
-    }
-    const QString repeat = cellAt(columns.repeat);
-    if (!repeat.isEmpty()) {
-        bool ok = false;
-        reading.repeat = repeat.toInt(&ok);
-        if (!ok || reading.repeat < 1) {
-            throw UsageError(where("repeat") +
-                             QStringLiteral(" \"%1\": expected a whole number >= 1").arg(repeat));
-        }
-    }
-    return reading;
-}
-
-std::vector<EvaluationReading> readReadingsCsv(const QString& path, Unit unit) {
-    QFile file(path);
-    if (!file.open(QIODevice::ReadOnly | QIODevice::Text)) {
-        throw UsageError(
-            QStringLiteral("option --readings \"%1\": %2").arg(path, file.errorString()));
-    }
-    QTextStream in(&file);
-    std::optional<CsvColumns> columns;
-    std::vector<EvaluationReading> readings;
-    for (int row = 1; !in.atEnd(); ++row) {
-        const QString line = in.readLine();
-        if (line.trimmed().isEmpty() || line.trimmed().startsWith(QLatin1Char('#'))) {
-            continue;
-        }
-        if (!columns) {
-            columns = readHeader(path, line);
-            continue;
-        }
-        readings.push_back(readRow(path, row, splitCsvLine(line), *columns, unit));
-    }
-    if (readings.empty()) {
-        throw UsageError(QStringLiteral("%1: no readings after the header").arg(path));
-    }
-    return readings;
-}
-
 // --- evaluate -------------------------------------------------------------------------------
 
 // "10V" -> 0 … 10 V; "-50uA..50uA" -> both limits.
-ScaleRange parseRange(const QString& raw, Unit& unit) {
+ScaleRange parseRange(const QString& raw, Unit& unit, const ParseOptions& options) {
     const QStringList parts = raw.split(QStringLiteral(".."));
     if (parts.size() > 2) {
         throw UsageError(QStringLiteral("option --range \"%1\": expected 10V or -5V..5V").arg(raw));
     }
     ScaleRange range;
     try {
-        const Quantity upper = parseQuantity(parts.back().trimmed().toStdString());
+        const Quantity upper = parseQuantity(parts.back().trimmed().toStdString(), options);
         unit = upper.unit;
         if (unit != Unit::Volt && unit != Unit::Ampere) {
             throw UsageError(
@@ -221,8 +106,9 @@ ScaleRange parseRange(const QString& raw, Unit& unit) {
                     .arg(raw));
         }
         range.upper = upper.value;
-        range.lower =
-            parts.size() == 2 ? parseValue(parts.front().trimmed().toStdString(), unit) : 0.0;
+        range.lower = parts.size() == 2
+                          ? parseValue(parts.front().trimmed().toStdString(), unit, options)
+                          : 0.0;
     } catch (const QuantityError& error) {
         throw UsageError(QStringLiteral("option --range \"%1\": %2")
                              .arg(raw, QString::fromStdString(error.what())));
@@ -246,18 +132,42 @@ double positiveNumber(const QCommandLineParser& parser, const QString& option) {
     return value;
 }
 
+QString classSeriesText() {
+    QStringList indices;
+    for (double index : classIndexSeries()) {
+        indices << QString::fromStdString(formatPlain(index));
+    }
+    return indices.join(QStringLiteral(", "));
+}
+
 void addEvaluateOptions(QCommandLineParser& parser) {
     const QString valueName = QStringLiteral("VALUE");
-    parser.addOption({QStringLiteral("readings"),
-                      QStringLiteral("CSV with columns applied,indicated[,direction][,repeat]."),
-                      QStringLiteral("FILE")});
+    parser.addOption(
+        {QStringLiteral("readings"),
+         QStringLiteral("CSV whose header names applied, indicated and optionally direction "
+                        "(up|down) and repeat. Cells are separated by ';' when the header line "
+                        "holds one, else by ','. A comma inside a value is a decimal comma only "
+                        "with --decimal-comma (then separate cells by ';' or quote them). Every "
+                        "row must have as many cells as the header; blank lines and lines "
+                        "starting with # are skipped. Messages give the file's line number "
+                        "(the header is line 1)."),
+         QStringLiteral("FILE")});
     parser.addOption(
         {QStringLiteral("range"), QStringLiteral("Range, e.g. 10V or -50uA..50uA."), valueName});
     parser.addOption(
-        {QStringLiteral("class"), QStringLiteral("Accuracy class index (IEC 60051)."), valueName});
+        {QStringLiteral("class"),
+         QStringLiteral("Accuracy class index of IEC 60051-2: %1.").arg(classSeriesText()),
+         valueName});
     parser.addOption({QStringLiteral("scale"),
-                      QStringLiteral("zero-at-end | zero-inside | no-zero | non-linear."),
+                      QStringLiteral("zero-at-end (default) | zero-inside | no-zero | "
+                                     "non-linear; sets the fiducial value (IEC 60051-1)."),
                       valueName});
+    parser.addOption(
+        {QStringLiteral("fiducial"),
+         QStringLiteral("Fiducial value in the range's unit, e.g. 80V, instead of the one the "
+                        "scale type gives (as the relevant part of IEC 60051 may fix it for a "
+                        "suppressed-zero scale); required for --scale non-linear."),
+         valueName});
     parser.addOption({QStringLiteral("divisions"), QStringLiteral("Scale divisions."), valueName});
     parser.addOption({QStringLiteral("readability"),
                       QStringLiteral("Fraction of a division read (default 0.2)."), valueName});
@@ -296,18 +206,37 @@ void addDecisionAndResistor(const QCommandLineParser& parser, EvaluationInput& i
     }
 }
 
-EvaluationInput inputFromOptions(const QCommandLineParser& parser) {
-    EvaluationInput input;
-    input.range = parseRange(requireText(parser, QStringLiteral("range")), input.unit);
-    input.kind =
-        input.unit == Unit::Ampere ? InstrumentKind::DcAmmeter : InstrumentKind::DcVoltmeter;
-    requireText(parser, QStringLiteral("class"));
-    input.classIndex = positiveNumber(parser, QStringLiteral("class"));
+// Class index from the IEC 60051-2 series, scale type, and the fiducial value when given.
+void addClassAndScale(const QCommandLineParser& parser, EvaluationInput& input) {
+    // The series has no thousands, so "1,5" and "1.5" can only mean the same index.
+    QString index = requireText(parser, QStringLiteral("class")).trimmed();
+    bool ok = false;
+    input.classIndex = index.replace(QLatin1Char(','), QLatin1Char('.')).toDouble(&ok);
+    if (!ok || !isStandardClassIndex(input.classIndex)) {
+        // The statement of conformity names the class "of IEC 60051": only the series is valid.
+        throw UsageError(QStringLiteral("option --class \"%1\": not an IEC 60051-2 class index; "
+                                        "use one of %2")
+                             .arg(parser.value(QStringLiteral("class")), classSeriesText()));
+    }
     const QString scale = chooseOne(parser, QStringLiteral("scale"),
                                     {QStringLiteral("zero-at-end"), QStringLiteral("zero-inside"),
                                      QStringLiteral("no-zero"), QStringLiteral("non-linear")},
                                     QStringLiteral("zero-at-end"));
     input.range.type = *fromText<ScaleType>(scale.toStdString());
+    input.range.fiducialOverride = optionalQuantity(parser, QStringLiteral("fiducial"), input.unit);
+    if (input.range.fiducialOverride && !(*input.range.fiducialOverride > 0.0)) {
+        throw UsageError(QStringLiteral("option --fiducial \"%1\": must be above zero")
+                             .arg(parser.value(QStringLiteral("fiducial"))));
+    }
+    if (input.range.type == ScaleType::NonLinear && !input.range.fiducialOverride) {
+        throw UsageError(QStringLiteral("option --fiducial is required with --scale non-linear: "
+                                        "no range limit defines the fiducial value of such a "
+                                        "scale (IEC 60051-1)"));
+    }
+}
+
+// Scale divisions and readability (the analog reading component), the reference standard.
+void addReadingAids(const QCommandLineParser& parser, EvaluationInput& input) {
     if (parser.isSet(QStringLiteral("divisions"))) {
         bool ok = false;
         input.divisions = parser.value(QStringLiteral("divisions")).toInt(&ok);
@@ -336,8 +265,22 @@ EvaluationInput inputFromOptions(const QCommandLineParser& parser) {
                 QStringLiteral("option --reference: %1").arg(QString::fromStdString(error.what())));
         }
     }
+}
+
+EvaluationInput inputFromOptions(const QCommandLineParser& parser, ReadingsFile& readings) {
+    const bool decimalComma = parser.isSet(QStringLiteral("decimal-comma"));
+    ParseOptions options;
+    options.decimalComma = decimalComma;
+    EvaluationInput input;
+    input.range = parseRange(requireText(parser, QStringLiteral("range")), input.unit, options);
+    input.kind =
+        input.unit == Unit::Ampere ? InstrumentKind::DcAmmeter : InstrumentKind::DcVoltmeter;
+    addClassAndScale(parser, input);
+    addReadingAids(parser, input);
     addDecisionAndResistor(parser, input);
-    input.readings = readReadingsCsv(requireText(parser, QStringLiteral("readings")), input.unit);
+    readings =
+        readReadingsCsv(requireText(parser, QStringLiteral("readings")), input.unit, decimalComma);
+    input.readings = readings.readings;
     return input;
 }
 
@@ -435,21 +378,24 @@ QJsonObject resultJson(const EvaluationResult& result, const EvaluationInput& in
 }
 
 void printTable(const EvaluationResult& result, const EvaluationInput& input) {
-    const QString unit = text(unitSymbol(input.unit));
+    const auto eng = [&input](double value, int digits) {
+        return QString::fromStdString(formatEngineering(value, digits, input.unit));
+    };
     printLine(QStringLiteral("%1 %2 %3 %4 %5 %6")
                   .arg(QStringLiteral("applied"), 12)
                   .arg(QStringLiteral("error"), 12)
-                  .arg(QStringLiteral("limit"), 10)
-                  .arg(QStringLiteral("U"), 10)
-                  .arg(QStringLiteral("TUR"), 6)
+                  .arg(QStringLiteral("limit"), 12)
+                  .arg(QStringLiteral("U"), 12)
+                  .arg(QStringLiteral("TUR"), 8)
                   .arg(QStringLiteral("decision")));
     for (const PointResult& p : result.points) {
+        // U is already rounded up to two significant digits; printing two keeps it exact.
         printLine(QStringLiteral("%1 %2 %3 %4 %5 %6")
-                      .arg(QString::number(p.applied, 'g', 6) + QLatin1Char(' ') + unit, 12)
-                      .arg(QString::number(p.error, 'g', 4), 12)
-                      .arg(QString::number(p.permissibleError, 'g', 4), 10)
-                      .arg(QString::number(p.budget.expandedRounded, 'g', 2), 10)
-                      .arg(QString::number(p.tur, 'f', 1), 6)
+                      .arg(eng(p.applied, 5), 12)
+                      .arg(eng(p.error, 3), 12)
+                      .arg(eng(p.permissibleError, 3), 12)
+                      .arg(eng(p.budget.expandedRounded, 2), 12)
+                      .arg(QString::fromStdString(formatPlain(p.tur)), 8)
                       .arg(text(displayName(p.decision))));
     }
     printLine(QStringLiteral("overall: %1").arg(text(displayName(result.overall))));
@@ -463,14 +409,24 @@ int runEvaluate(const QStringList& arguments) {
     QCommandLineParser parser;
     parser.setApplicationDescription(
         QStringLiteral("Evaluate the readings of one range: errors, uncertainty (GUM), decision "
-                       "(ILAC G8:09/2019), statement of conformity and adjustment advice."));
+                       "(ILAC G8:09/2019), statement of conformity and adjustment advice.\n"
+                       "In --json output, a point's dof_effective is null when the effective "
+                       "degrees of freedom are infinite (k is then 2 for 95.45 %), and "
+                       "expanded_uncertainty is U rounded UP to two significant digits (JCGM "
+                       "100:2008 7.2.6); tur and the decision use that rounded U."));
     addEvaluateOptions(parser);
     parseOptions(parser, QStringLiteral("calc evaluate"), arguments);
     if (helpRequested(parser, QStringLiteral("calc evaluate"))) {
         return 0;
     }
-    const EvaluationInput input = inputFromOptions(parser);
-    const EvaluationResult result = evaluateRange(input);
+    ReadingsFile readings;
+    const EvaluationInput input = inputFromOptions(parser, readings);
+    EvaluationResult result;
+    try {
+        result = evaluateRange(input);
+    } catch (const std::invalid_argument& error) {
+        throw UsageError(messageWithCsvLine(QString::fromStdString(error.what()), readings));
+    }
     if (parser.isSet(QStringLiteral("json"))) {
         printJson(resultJson(result, input));
     } else {

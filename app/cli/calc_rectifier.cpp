@@ -2,6 +2,7 @@
 // meter predictions from the command line.
 #include "app/cli/cli_support.h"
 #include "app/cli/command_table.h"
+#include "app/cli/csv_table.h"
 #include "core/circuits/eseries.h"
 #include "core/circuits/hazard.h"
 #include "core/circuits/rectifier_design.h"
@@ -14,6 +15,7 @@
 #include <cmath>
 #include <limits>
 #include <optional>
+#include <vector>
 
 namespace mw::cli {
 namespace {
@@ -158,12 +160,38 @@ QJsonValue cautionFor(double range_volts, Rectifier rectifier, const Dissipation
     return text ? QJsonValue(QString::fromStdString(*text)) : QJsonValue(QJsonValue::Null);
 }
 
+// The human-readable form of `calc multiplier`, from the same numbers as the JSON.
+void printMultiplier(const QJsonObject& json) {
+    const auto value = [&json](const char* key, Unit unit, int digits = 5) {
+        return eng(json.value(QLatin1String(key)).toDouble(), unit, digits);
+    };
+    printLine(
+        QStringLiteral("multiplier        %1 (ideal diodes %2)")
+            .arg(value("multiplier_ohm", Unit::Ohm), value("multiplier_ideal_ohm", Unit::Ohm)));
+    printLine(QStringLiteral("sensitivity       %1 (ideal diodes), %2 effective")
+                  .arg(value("sensitivity_ohm_per_volt", Unit::OhmPerVolt),
+                       value("effective_sensitivity_ohm_per_volt", Unit::OhmPerVolt)));
+    printLine(QStringLiteral("E96 not above     %1 + trim %2")
+                  .arg(value("nearest_standard_ohm", Unit::Ohm, 3), value("trim_ohm", Unit::Ohm)));
+    printLine(QStringLiteral("dissipation       %1 at full scale")
+                  .arg(value("dissipation_w", Unit::Watt, 3)));
+    if (json.value(QStringLiteral("caution")).isString()) {
+        printLine(QStringLiteral("caution           ") +
+                  json.value(QStringLiteral("caution")).toString());
+    }
+}
+
 int runMultiplier(const QStringList& arguments) {
     const QString command = QStringLiteral("calc multiplier");
     QCommandLineParser parser;
     parser.setApplicationDescription(QStringLiteral(
         "Multiplier that puts full scale exactly at the range (DC, or rms of a sine through a "
-        "half-wave or bridge rectifier), with the nearest E96 value and its trim."));
+        "half-wave or bridge rectifier), with the nearest E96 value and its trim.\n"
+        "sensitivity_ohm_per_volt is the textbook AC sensitivity with ideal diodes (0.9 x the DC "
+        "ohms per volt for a bridge, 0.45 x for half-wave), whatever --diode says. "
+        "effective_sensitivity_ohm_per_volt is what the source sees at full scale with the "
+        "chosen diodes: 1 / (true rms input current at full scale), i.e. input_resistance_ohm "
+        "(range / that current) per volt of range."));
     addMovementOptions(parser);
     addDiodeOptions(parser);
     addValueOption(parser, QStringLiteral("range"),
@@ -189,6 +217,11 @@ int runMultiplier(const QStringList& arguments) {
     json[QStringLiteral("multiplier_ideal_ohm")] = jsonNumber(solution.ideal_multiplier_ohms);
     json[QStringLiteral("sensitivity_ohm_per_volt")] =
         jsonNumber(acSensitivityOhmPerVolt(circuit, averagePerRms(rectifier)));
+    // The source sees range / I_rms; per volt of range that is 1 / I_rms.
+    json[QStringLiteral("input_resistance_ohm")] =
+        jsonNumber(range_volts / solution.multiplier_rms_amps_fs);
+    json[QStringLiteral("effective_sensitivity_ohm_per_volt")] =
+        jsonNumber(1.0 / solution.multiplier_rms_amps_fs);
     json[QStringLiteral("nearest_standard_ohm")] = jsonNumber(choice.ohms_standard);
     json[QStringLiteral("trim_ohm")] = jsonNumber(choice.ohms_trim);
     json[QStringLiteral("dissipation_w")] = jsonNumber(heat.watts_fs);
@@ -198,20 +231,26 @@ int runMultiplier(const QStringList& arguments) {
         printJson(json);
         return 0;
     }
-    printLine(QStringLiteral("multiplier        %1 (ideal diodes %2)")
-                  .arg(eng(ohms, Unit::Ohm), eng(solution.ideal_multiplier_ohms, Unit::Ohm)));
-    printLine(QStringLiteral("sensitivity       %1")
-                  .arg(eng(json[QStringLiteral("sensitivity_ohm_per_volt")].toDouble(),
-                           Unit::OhmPerVolt)));
-    printLine(QStringLiteral("E96 not above     %1 + trim %2")
-                  .arg(eng(choice.ohms_standard, Unit::Ohm, 3), eng(choice.ohms_trim, Unit::Ohm)));
-    printLine(QStringLiteral("dissipation       %1 at full scale")
-                  .arg(eng(heat.watts_fs, Unit::Watt, 3)));
-    if (json[QStringLiteral("caution")].isString()) {
-        printLine(QStringLiteral("caution           ") +
-                  json[QStringLiteral("caution")].toString());
-    }
+    printMultiplier(json);
     return 0;
+}
+
+void addIndicationOptions(QCommandLineParser& parser) {
+    addValueOption(parser, QStringLiteral("rs"), QStringLiteral("Multiplier resistance."),
+                   QStringLiteral("OHM"));
+    addValueOption(parser, QStringLiteral("range"),
+                   QStringLiteral("Full-scale value of the range (e.g. 10V)."),
+                   QStringLiteral("V"));
+    addValueOption(parser, QStringLiteral("input"),
+                   QStringLiteral("Applied value: true rms (AC) or DC volts (e.g. 2.5V)."),
+                   QStringLiteral("V"));
+    addValueOption(parser, QStringLiteral("waveform"),
+                   QStringLiteral("sine (default), square or triangle; checked but not used with "
+                                  "--rectifier none, where --input is a DC value."),
+                   QStringLiteral("SHAPE"));
+    addValueOption(parser, QStringLiteral("frequency"),
+                   QStringLiteral("Frequency; the resistive model does not depend on it."),
+                   QStringLiteral("HZ"));
 }
 
 int runIndication(const QStringList& arguments) {
@@ -222,19 +261,7 @@ int runIndication(const QStringList& arguments) {
         "on a scale marked in rms of a sine (DC for --rectifier none)."));
     addMovementOptions(parser);
     addDiodeOptions(parser);
-    addValueOption(parser, QStringLiteral("rs"), QStringLiteral("Multiplier resistance."),
-                   QStringLiteral("OHM"));
-    addValueOption(parser, QStringLiteral("range"),
-                   QStringLiteral("Full-scale value of the range (e.g. 10V)."),
-                   QStringLiteral("V"));
-    addValueOption(parser, QStringLiteral("input"),
-                   QStringLiteral("Applied value: true rms (AC) or DC volts (e.g. 2.5V)."),
-                   QStringLiteral("V"));
-    addValueOption(parser, QStringLiteral("waveform"),
-                   QStringLiteral("sine (default), square or triangle."), QStringLiteral("SHAPE"));
-    addValueOption(parser, QStringLiteral("frequency"),
-                   QStringLiteral("Frequency; the resistive model does not depend on it."),
-                   QStringLiteral("HZ"));
+    addIndicationOptions(parser);
     parseOptions(parser, command, arguments);
     if (helpRequested(parser, command)) {
         return 0;
@@ -251,10 +278,10 @@ int runIndication(const QStringList& arguments) {
     if (rectifier != Rectifier::None && input_volts < 0.0) {
         throw UsageError(QStringLiteral("option --input: an rms value cannot be negative"));
     }
+    const WaveShape shape = shapeFrom(parser); // checked even where a DC meter ignores it
     const RectifierMeter meter = meterFrom(parser, circuit);
-    const Waveform input = rectifier == Rectifier::None
-                               ? Waveform::sineWithOffset(0.0, input_volts)
-                               : Waveform::withRms(shapeFrom(parser), input_volts);
+    const Waveform input = rectifier == Rectifier::None ? Waveform::sineWithOffset(0.0, input_volts)
+                                                        : Waveform::withRms(shape, input_volts);
     const Indication indication = predictIndication(meter, range_volts, input);
 
     QJsonObject json;
@@ -270,13 +297,65 @@ int runIndication(const QStringList& arguments) {
                   .arg(eng(indication.movement_amps, Unit::Ampere)));
     printLine(QStringLiteral("indicated         %1 (applied %2)")
                   .arg(eng(indication.indicated, Unit::Volt), eng(input_volts, Unit::Volt)));
-    printLine(QStringLiteral("error             %1 % of range")
-                  .arg(QString::number(indication.error_percent_of_range, 'f', 3)));
+    printLine(QStringLiteral("error             %1 of range")
+                  .arg(eng(indication.error_percent_of_range, Unit::Percent, 3)));
     return 0;
 }
 
-// The waveform of `calc waveform`: shape, AC part by rms or peak, and a DC offset for the sine.
+double sampleVolts(const QString& where, const QString& cell, bool decimalComma) {
+    try {
+        ParseOptions options;
+        options.decimalComma = decimalComma;
+        return parseValue(cell.toStdString(), Unit::Volt, options);
+    } catch (const QuantityError& error) {
+        throw UsageError(
+            QStringLiteral("%1 \"%2\": %3").arg(where, cell, QString::fromStdString(error.what())));
+    }
+}
+
+// One period of samples: a CSV whose header has a column v, or else one value per line.
+std::vector<double> readSamples(const QString& path, bool decimalComma) {
+    const std::vector<CsvLine> lines = readDataLines(path, QStringLiteral("samples"));
+    std::vector<double> volts;
+    const bool table =
+        !lines.empty() && splitCsvLine(lines.front().text, separatorOf(lines.front().text),
+                                       path + QStringLiteral(" line %1").arg(lines.front().number))
+                              .contains(QStringLiteral("v"), Qt::CaseInsensitive);
+    if (table) {
+        const CsvTable csv = tableFromLines(path, lines);
+        const int column = csv.column(QStringLiteral("v"));
+        for (const CsvRow& row : csv.rows) {
+            volts.push_back(sampleVolts(csv.where(row.line) + QStringLiteral(", column v"),
+                                        row.cells[column], decimalComma));
+        }
+    } else {
+        for (const CsvLine& line : lines) {
+            volts.push_back(sampleVolts(path + QStringLiteral(" line %1").arg(line.number),
+                                        line.text.trimmed(), decimalComma));
+        }
+    }
+    if (volts.size() < 2) {
+        throw UsageError(QStringLiteral("%1: one period needs at least 2 samples, found %2")
+                             .arg(path)
+                             .arg(volts.size()));
+    }
+    return volts;
+}
+
+// The waveform of `calc waveform`: samples from a file, or a shape with its AC part by rms or
+// peak and a DC offset for the sine.
 Waveform waveformFrom(const QCommandLineParser& parser) {
+    if (parser.isSet(QStringLiteral("samples"))) {
+        for (const char* other : {"waveform", "rms", "peak", "offset"}) {
+            if (parser.isSet(QLatin1String(other))) {
+                throw UsageError(QStringLiteral("option --samples gives the whole waveform; it "
+                                                "cannot go with --%1")
+                                     .arg(QLatin1String(other)));
+            }
+        }
+        return Waveform::sampled(readSamples(parser.value(QStringLiteral("samples")),
+                                             parser.isSet(QStringLiteral("decimal-comma"))));
+    }
     const WaveShape shape = shapeFrom(parser);
     if (parser.isSet(QStringLiteral("rms")) && parser.isSet(QStringLiteral("peak"))) {
         throw UsageError(QStringLiteral("give either --rms or --peak, not both"));
@@ -317,6 +396,12 @@ int runWaveform(const QStringList& arguments) {
                    QStringLiteral("Peak of the AC part, instead of --rms."), QStringLiteral("V"));
     addValueOption(parser, QStringLiteral("offset"),
                    QStringLiteral("DC offset added to a sine (default 0V)."), QStringLiteral("V"));
+    addValueOption(parser, QStringLiteral("samples"),
+                   QStringLiteral("File with one period of evenly spaced samples in volts: one "
+                                  "value per line, or a CSV whose header has a column v "
+                                  "(separator ';' if the header has one, else ','). Replaces "
+                                  "--waveform, --rms, --peak and --offset."),
+                   QStringLiteral("FILE"));
     addValueOption(parser, QStringLiteral("rectifier"),
                    QStringLiteral("Meter's rectifier: bridge (default) or half."),
                    QStringLiteral("KIND"));
@@ -334,6 +419,9 @@ int runWaveform(const QStringList& arguments) {
 
     QJsonObject json;
     json[QStringLiteral("waveform")] = QString::fromUtf8(shapeName(wave.shape()).data());
+    if (wave.shape() == WaveShape::Sampled) {
+        json[QStringLiteral("samples")] = static_cast<qint64>(wave.samplesVolts().size());
+    }
     json[QStringLiteral("rms_v")] = jsonNumber(wave.rms());
     json[QStringLiteral("average_v")] = jsonNumber(wave.rectifiedAverage());
     json[QStringLiteral("half_wave_average_v")] = jsonNumber(wave.halfWaveAverage());
@@ -348,11 +436,11 @@ int runWaveform(const QStringList& arguments) {
     }
     printLine(QStringLiteral("true rms          %1").arg(eng(wave.rms(), Unit::Volt)));
     printLine(QStringLiteral("rectified average %1").arg(eng(wave.rectifiedAverage(), Unit::Volt)));
-    printLine(
-        QStringLiteral("form factor       %1").arg(QString::number(wave.formFactor(), 'f', 6)));
-    printLine(QStringLiteral("average-responding meter reads %1 (%2 %)")
+    printLine(QStringLiteral("form factor       %1")
+                  .arg(QString::fromStdString(formatPlain(wave.formFactor()))));
+    printLine(QStringLiteral("average-responding meter reads %1 (%2)")
                   .arg(eng(reading.indicated_volts, Unit::Volt),
-                       QString::number(reading.error_percent, 'f', 3)));
+                       eng(reading.error_percent, Unit::Percent, 3)));
     return 0;
 }
 

@@ -59,11 +59,16 @@ void printError(const QString& where, const QString& message) {
 
 int runFrom(const std::vector<Command>& commands, const QString& family,
             const QStringList& arguments) {
-    if (arguments.isEmpty() || arguments.first() == QStringLiteral("--help") ||
+    if (arguments.isEmpty()) {
+        printError(family,
+                   QStringLiteral("no command given; see meterwright %1 --help").arg(family));
+        return kUsageError;
+    }
+    if (arguments.first() == QStringLiteral("--help") ||
         arguments.first() == QStringLiteral("-h")) {
         printLine(QStringLiteral("Usage: meterwright %1 COMMAND [OPTIONS]\n\nCommands:\n%2")
                       .arg(family, listing(commands, QString())));
-        return arguments.isEmpty() ? kUsageError : 0;
+        return 0;
     }
     const QString name = arguments.first();
     for (const Command& command : commands) {

@@ -1,64 +1,27 @@
 // `meterwright calc shunt|ayrton|temperature|eseries` run as a separate process: JSON results
 // against textbook examples, and bad input giving exit code 2 with one line on stderr.
 #include "support/approx.h"
+#include "support/cli_process.h"
 
 #include <catch2/catch.hpp>
 
 #include <QJsonArray>
-#include <QJsonDocument>
 #include <QJsonObject>
-#include <QProcess>
 #include <QStringList>
 
 #include <cmath>
 
+using mwtest::args;
 using mwtest::relative;
+using mwtest::calc::runJson;
 
 namespace {
 
-struct Result {
-    int exitCode = -1;
-    QByteArray out;
-    QByteArray err;
-};
-
-Result runCalc(const QStringList& arguments) {
-    QProcess process;
-    process.start(QStringLiteral(MW_BINARY_DIR "/app/meterwright"),
-                  QStringList{QStringLiteral("calc")} + arguments);
-    REQUIRE(process.waitForFinished(30000));
-    REQUIRE(process.exitStatus() == QProcess::NormalExit);
-    return {process.exitCode(), process.readAllStandardOutput(), process.readAllStandardError()};
-}
-
-QJsonObject runJson(const QStringList& arguments) {
-    const Result result = runCalc(arguments + QStringList{QStringLiteral("--json")});
-    INFO(result.err.toStdString());
-    REQUIRE(result.exitCode == 0);
-    QJsonParseError error{};
-    const QJsonDocument document = QJsonDocument::fromJson(result.out, &error);
-    REQUIRE(error.error == QJsonParseError::NoError);
-    return document.object();
-}
-
-// Exit code 2 and exactly one line on stderr that contains `words`.
+// The shared check, and also that the one line on stderr ends with its newline.
 void requireUsageError(const QStringList& arguments, const char* words) {
-    const Result result = runCalc(arguments);
-    INFO("arguments: " << arguments.join(QLatin1Char(' ')).toStdString());
+    const mwtest::CliResult result = mwtest::calc::requireUsageError(arguments, words);
     INFO("stderr: " << result.err.toStdString());
-    CHECK(result.exitCode == 2);
-    CHECK(result.err.count('\n') == 1);
     CHECK(result.err.endsWith('\n'));
-    CHECK(result.err.contains(words));
-    CHECK(result.out.isEmpty());
-}
-
-QStringList args(std::initializer_list<const char*> words) {
-    QStringList list;
-    for (const char* word : words) {
-        list << QString::fromUtf8(word);
-    }
-    return list;
 }
 
 } // namespace
@@ -157,12 +120,13 @@ TEST_CASE("calc eseries picks the IEC 60063 value not above and the trim") {
 }
 
 TEST_CASE("without --json the commands print readable lines") {
-    const Result result = runCalc(args({"shunt", "--ifs", "1mA", "--rm", "100", "--range", "1A"}));
+    const mwtest::CliResult result =
+        mwtest::calc::run(args({"shunt", "--ifs", "1mA", "--rm", "100", "--range", "1A"}));
     CHECK(result.exitCode == 0);
     CHECK(result.out.contains("shunt"));
     CHECK(result.out.contains("m\xce\xa9")); // "mΩ": engineering notation with the ohm sign
-    const Result ayrton =
-        runCalc(args({"ayrton", "--ifs", "1mA", "--rm", "50", "--ranges", "1A,5A,10A"}));
+    const mwtest::CliResult ayrton =
+        mwtest::calc::run(args({"ayrton", "--ifs", "1mA", "--rm", "50", "--ranges", "1A,5A,10A"}));
     CHECK(ayrton.exitCode == 0);
     CHECK(ayrton.out.contains("section 1 from the common terminal"));
 }

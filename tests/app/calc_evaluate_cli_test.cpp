@@ -1,67 +1,27 @@
 // `meterwright calc coverage|evaluate` run as a separate process: JSON results against GUM
 // Table G.2 and hand-checked evaluations of invented readings, and bad input giving exit code 2
-// with one line on stderr naming the row, column or option.
+// with one line on stderr naming the CSV line, column or option.
 #include "support/approx.h"
+#include "support/cli_process.h"
 
 #include <catch2/catch.hpp>
 
 #include <QFile>
 #include <QJsonArray>
-#include <QJsonDocument>
 #include <QJsonObject>
-#include <QProcess>
 #include <QStringList>
 #include <QTemporaryDir>
 
+#include <algorithm>
 #include <initializer_list>
 
 using mwtest::absolute;
+using mwtest::args;
 using mwtest::relative;
+using mwtest::calc::requireUsageError;
+using mwtest::calc::runJson;
 
 namespace {
-
-struct Result {
-    int exitCode = -1;
-    QByteArray out;
-    QByteArray err;
-};
-
-Result runCalc(const QStringList& arguments) {
-    QProcess process;
-    process.start(QStringLiteral(MW_BINARY_DIR "/app/meterwright"),
-                  QStringList{QStringLiteral("calc")} + arguments);
-    REQUIRE(process.waitForFinished(30000));
-    REQUIRE(process.exitStatus() == QProcess::NormalExit);
-    return {process.exitCode(), process.readAllStandardOutput(), process.readAllStandardError()};
-}
-
-QJsonObject runJson(const QStringList& arguments) {
-    const Result result = runCalc(arguments + QStringList{QStringLiteral("--json")});
-    INFO(result.err.toStdString());
-    REQUIRE(result.exitCode == 0);
-    QJsonParseError error{};
-    const QJsonDocument document = QJsonDocument::fromJson(result.out, &error);
-    REQUIRE(error.error == QJsonParseError::NoError);
-    return document.object();
-}
-
-void requireUsageError(const QStringList& arguments, const char* words) {
-    const Result result = runCalc(arguments);
-    INFO("arguments: " << arguments.join(QLatin1Char(' ')).toStdString());
-    INFO("stderr: " << result.err.toStdString());
-    CHECK(result.exitCode == 2);
-    CHECK(result.err.count('\n') == 1);
-    CHECK(result.err.contains(words));
-    CHECK(result.out.isEmpty());
-}
-
-QStringList args(std::initializer_list<const char*> words) {
-    QStringList list;
-    for (const char* word : words) {
-        list << QString::fromUtf8(word);
-    }
-    return list;
-}
 
 // Writes `text` to `name` in `dir` and returns the path.
 QString fixture(const QTemporaryDir& dir, const char* name, const char* text) {
@@ -133,11 +93,14 @@ TEST_CASE("calc evaluate gives per-point errors, budget, decisions, statement an
     CHECK(top.value(QStringLiteral("error_percent_of_fiducial")).toDouble() == absolute(1.6, 1e-9));
     // IEC 60051: class 1.5 of 10 V -> ±0.15 V.
     CHECK(top.value(QStringLiteral("permissible_error")).toDouble() == relative(0.15, 1e-12));
-    // GUM 4.3.7 and Table G.2: U = 2·√(0.02² + 0.003²)/√3 = 0.02335 -> 0.023 V (7.2.6).
-    CHECK(top.value(QStringLiteral("expanded_uncertainty")).toDouble() == relative(0.023, 1e-12));
+    // GUM 4.3.7 and Table G.2: U = 2·√(0.02² + 0.003²)/√3 = 0.02335 V, reported to two
+    // significant digits (JCGM 100:2008 7.2.6). The engine rounds UP, as 7.2.6 allows, so that
+    // rounding never narrows the guard band or flatters the TUR: 0.024 V, not 0.023 V.
+    CHECK(top.value(QStringLiteral("expanded_uncertainty")).toDouble() == relative(0.024, 1e-12));
     CHECK(top.value(QStringLiteral("k")).toDouble() == relative(2.0, 1e-9));
     CHECK(top.value(QStringLiteral("dof_effective")).isNull()); // infinite
-    CHECK(top.value(QStringLiteral("tur")).toDouble() == relative(0.15 / 0.023, 1e-9));
+    // ANSI/NCSL Z540.3 TUR = limit / U with the reported (rounded-up) U: 0.15 / 0.024 = 6.25.
+    CHECK(top.value(QStringLiteral("tur")).toDouble() == relative(6.25, 1e-9));
     // ILAC G8:09/2019 4.2.1 simple acceptance: 0.16 V > 0.15 V fails; 0.14 V at 8 V passes.
     CHECK(top.value(QStringLiteral("decision")).toString() == QStringLiteral("fail"));
     CHECK(points.at(4).toObject().value(QStringLiteral("decision")).toString() ==
@@ -158,8 +121,8 @@ TEST_CASE("calc evaluate gives per-point errors, budget, decisions, statement an
 }
 
 TEST_CASE("calc evaluate with guarded acceptance gives conditional outcomes") {
-    // ILAC G8:09/2019 4.2.3, w = U = 0.023 V: 0.14 V at 8 V conditional pass, 0.16 V at
-    // 10 V conditional fail.
+    // ILAC G8:09/2019 4.2.3, w = U = 0.024 V (rounded up, JCGM 100:2008 7.2.6): 0.14 V at 8 V
+    // conditional pass, 0.16 V at 10 V conditional fail.
     QTemporaryDir dir;
     const QString csv = fixture(dir, "readings.csv", kSynthetic);
     const QJsonObject json =
@@ -203,16 +166,16 @@ TEST_CASE("calc evaluate names the bad row, column or option") {
     QTemporaryDir dir;
     const QString good = fixture(dir, "good.csv", kSynthetic);
     const QString badNumber = fixture(dir, "bad_number.csv", "applied,indicated\n1,1.01\n2,two\n");
-    requireUsageError(evaluate(badNumber, {}), "row 3, column indicated");
+    requireUsageError(evaluate(badNumber, {}), "line 3, column indicated");
     const QString badUnit = fixture(dir, "bad_unit.csv", "applied,indicated\n1mA,1.0\n");
-    requireUsageError(evaluate(badUnit, {}), "row 2, column applied");
+    requireUsageError(evaluate(badUnit, {}), "line 2, column applied");
     const QString badDirection =
         fixture(dir, "bad_direction.csv", "applied,indicated,direction\n1,1,sideways\n");
     requireUsageError(evaluate(badDirection, {}), "column direction");
     const QString badRepeat = fixture(dir, "bad_repeat.csv", "applied,indicated,repeat\n1,1,0\n");
     requireUsageError(evaluate(badRepeat, {}), "column repeat");
     const QString noHeader = fixture(dir, "no_header.csv", "x,y\n1,1\n");
-    requireUsageError(evaluate(noHeader, {}), "row 1");
+    requireUsageError(evaluate(noHeader, {}), "line 1");
     const QString empty = fixture(dir, "empty.csv", "applied,indicated\n");
     requireUsageError(evaluate(empty, {}), "no readings");
     requireUsageError(evaluate(dir.filePath(QStringLiteral("missing.csv")), {}), "--readings");
@@ -228,4 +191,160 @@ TEST_CASE("calc evaluate names the bad row, column or option") {
     requireUsageError(QStringList{QStringLiteral("evaluate"), QStringLiteral("--readings"), good} +
                           args({"--range", "10 ohm", "--class", "1"}),
                       "--range");
+}
+
+TEST_CASE("calc evaluate refuses a row whose cell count differs from the header") {
+    QTemporaryDir dir;
+    REQUIRE(dir.isValid());
+    // RFC 4180 2.4 (from memory): every record has as many fields as the header. A third cell
+    // under a two-column header must not be dropped silently.
+    const QString extra = fixture(dir, "extra.csv", "applied,indicated\n0,0\n0,0,7\n");
+    requireUsageError(evaluate(extra, {}), "line 3 has 3 cells, but the header (line 1) has 2");
+    const QString fewer = fixture(dir, "fewer.csv", "applied,indicated,direction\n5,5.1,up\n5\n");
+    requireUsageError(evaluate(fewer, {}), "line 3 has 1 cell, but the header (line 1) has 3");
+    // Blank and comment lines still count: the message points at the line a text editor shows.
+    const QString gaps =
+        fixture(dir, "gaps.csv", "# bench log\napplied,indicated\n\n5,5.1\n\n6,6.1,\n");
+    requireUsageError(evaluate(gaps, {}), "gaps.csv line 6 has 3 cells, but the header (line 2)");
+    const QString quote = fixture(dir, "quote.csv", "applied,indicated\n5,\"5.1\n");
+    requireUsageError(evaluate(quote, {}), "line 2: a quoted cell is not closed");
+    const QString twice = fixture(dir, "twice.csv", "applied,Applied,indicated\n1,1,1\n");
+    requireUsageError(evaluate(twice, {}), "twice.csv line 1: column \"applied\" appears twice");
+}
+
+TEST_CASE("calc evaluate takes ';' from the header and a decimal comma with --decimal-comma") {
+    QTemporaryDir dir;
+    REQUIRE(dir.isValid());
+    // Common practice: spreadsheets set to a decimal comma write ';' between cells.
+    const QString semicolon =
+        fixture(dir, "comma.csv", "applied;indicated\n5,0;5,2\n10;10,1\n0;0,05\n");
+    const QJsonObject json = runJson(evaluate(semicolon, {"--decimal-comma"}));
+    const QJsonArray points = json.value(QStringLiteral("points")).toArray();
+    REQUIRE(points.size() == 3);
+    CHECK(points.at(1).toObject().value(QStringLiteral("applied")).toDouble() == 5.0);
+    CHECK(points.at(1).toObject().value(QStringLiteral("error")).toDouble() ==
+          absolute(0.2, 1e-12));
+    CHECK(points.at(2).toObject().value(QStringLiteral("error")).toDouble() ==
+          absolute(0.1, 1e-12));
+    // Without --decimal-comma "5,0" is refused, naming the line and the column.
+    const auto refused = requireUsageError(evaluate(semicolon, {}), "line 2, column applied");
+    CHECK(refused.err.contains("decimal comma is off"));
+    // A ',' file can still carry a decimal comma inside quotes (RFC 4180 2.6, from memory).
+    const QString quoted = fixture(dir, "quoted.csv", "applied,indicated\n\"5,0\",\"5,2\"\n");
+    const QJsonObject fromQuotes = runJson(evaluate(quoted, {"--decimal-comma"}));
+    CHECK(fromQuotes.value(QStringLiteral("points"))
+              .toArray()
+              .at(0)
+              .toObject()
+              .value(QStringLiteral("error"))
+              .toDouble() == absolute(0.2, 1e-12));
+    // Unquoted, "5,0,5,2" is four cells under a two-column header: refused with a hint.
+    const QString unquoted = fixture(dir, "unquoted.csv", "applied,indicated\n5,0,5,2\n");
+    const auto split =
+        requireUsageError(evaluate(unquoted, {"--decimal-comma"}), "line 2 has 4 cells");
+    CHECK(split.err.contains("decimal comma needs ';'"));
+}
+
+TEST_CASE("calc evaluate skips a UTF-8 byte-order mark, blank lines and comments") {
+    QTemporaryDir dir;
+    REQUIRE(dir.isValid());
+    // Common practice: spreadsheet programs start a UTF-8 CSV with the byte-order mark U+FEFF.
+    const QString bom = fixture(dir, "bom.csv",
+                                "\xEF\xBB\xBF"
+                                "applied,indicated\n\n# first run\n5,5.1\n\n10,10.1\n\n");
+    const QJsonObject json = runJson(evaluate(bom, {}));
+    CHECK(json.value(QStringLiteral("points")).toArray().size() == 2);
+}
+
+TEST_CASE("calc evaluate names the CSV line of a reading off the range's scale") {
+    QTemporaryDir dir;
+    REQUIRE(dir.isValid());
+    // 20 V on a 10 V range is the 3rd reading but stands on line 5 (a blank line before it).
+    const QString off = fixture(dir, "off.csv", "applied,indicated\n5,5.1\n10,10.1\n\n20,20\n");
+    const auto result = requireUsageError(evaluate(off, {}), "off.csv line 5 (reading 3)");
+    CHECK(result.err.contains("outside the range's scale"));
+}
+
+TEST_CASE("calc evaluate takes only class indices of IEC 60051-2") {
+    QTemporaryDir dir;
+    REQUIRE(dir.isValid());
+    const QString csv = fixture(dir, "readings.csv", kSynthetic);
+    // IEC 60051-2 class series 0.05 … 5 (from memory, see the reference notes): 1.7 is none.
+    const QStringList base = QStringList{QStringLiteral("evaluate"), QStringLiteral("--readings"),
+                                         csv, QStringLiteral("--range"), QStringLiteral("10V")};
+    const auto refused = requireUsageError(base + args({"--class", "1.7"}), "--class \"1.7\"");
+    CHECK(refused.err.contains("0.05, 0.1, 0.2, 0.3, 0.5, 1, 1.5, 2, 2.5, 3, 5"));
+    requireUsageError(base + args({"--class", "0"}), "--class");
+    requireUsageError(base + args({"--class", "one"}), "--class");
+    // 2.5 is in the series: ±0.25 V on 10 V (IEC 60051-1: class index % of the fiducial value).
+    const QJsonObject json = runJson(base + args({"--class", "2.5"}));
+    CHECK(json.value(QStringLiteral("permissible_error")).toDouble() == relative(0.25, 1e-12));
+    CHECK(json.value(QStringLiteral("statement"))
+              .toString()
+              .contains(QStringLiteral("class 2.5 of IEC 60051")));
+}
+
+TEST_CASE("calc evaluate --fiducial sets the fiducial value and is required for non-linear") {
+    QTemporaryDir dir;
+    REQUIRE(dir.isValid());
+    const QString csv =
+        fixture(dir, "suppressed.csv", "applied,indicated\n180,180.5\n220,220.9\n260,261.0\n");
+    const QStringList base = QStringList{
+        QStringLiteral("evaluate"), QStringLiteral("--readings"), csv,
+        QStringLiteral("--range"),  QStringLiteral("180V..260V"), QStringLiteral("--class"),
+        QStringLiteral("1.5")};
+    // IEC 60051-1 fiducial value of a suppressed-zero 180 … 260 V scale, class 1.5 (from
+    // memory, low confidence, see the reference notes): the upper limit by the general rule,
+    // ±3.9 V; the span where the relevant part fixes it, ±1.2 V.
+    const QJsonObject byRule = runJson(base + args({"--scale", "no-zero"}));
+    CHECK(byRule.value(QStringLiteral("fiducial_value")).toDouble() == relative(260.0, 1e-12));
+    CHECK(byRule.value(QStringLiteral("permissible_error")).toDouble() == relative(3.9, 1e-12));
+    const QJsonObject bySpan = runJson(base + args({"--scale", "no-zero", "--fiducial", "80V"}));
+    CHECK(bySpan.value(QStringLiteral("fiducial_value")).toDouble() == relative(80.0, 1e-12));
+    CHECK(bySpan.value(QStringLiteral("permissible_error")).toDouble() == relative(1.2, 1e-12));
+    const QJsonArray points = bySpan.value(QStringLiteral("points")).toArray();
+    REQUIRE(points.size() == 3);
+    // 0.9 V at 220 V is 1.125 % of 80 V and within ±1.2 V; 1.0 V at 260 V also.
+    CHECK(points.at(1).toObject().value(QStringLiteral("error_percent_of_fiducial")).toDouble() ==
+          relative(1.125, 1e-9));
+    // A non-linear scale has no limit that defines its fiducial value: it must be given.
+    requireUsageError(base + args({"--scale", "non-linear"}), "--fiducial is required");
+    const QJsonObject nonLinear =
+        runJson(base + args({"--scale", "non-linear", "--fiducial", "100"}));
+    CHECK(nonLinear.value(QStringLiteral("permissible_error")).toDouble() == relative(1.5, 1e-12));
+    requireUsageError(base + args({"--scale", "non-linear", "--fiducial", "2A"}), "--fiducial");
+    requireUsageError(base + args({"--scale", "non-linear", "--fiducial", "-5V"}), "--fiducial");
+}
+
+TEST_CASE("calc evaluate --help states how dof_effective and U are reported") {
+    const mwtest::CliResult help = mwtest::calc::run(args({"evaluate", "--help"}));
+    CHECK(help.exitCode == 0);
+    const QString text = help.outText().simplified(); // option help is wrapped in columns
+    CHECK(text.contains(QStringLiteral("dof_effective is null when the effective degrees of "
+                                       "freedom are infinite")));
+    CHECK(text.contains(QStringLiteral("rounded UP to two significant digits")));
+    CHECK(text.contains(QStringLiteral("--fiducial")));
+    CHECK(text.contains(QStringLiteral("only with --decimal-comma")));
+}
+
+TEST_CASE("calc evaluate prints its table in engineering notation") {
+    QTemporaryDir dir;
+    REQUIRE(dir.isValid());
+    const QString csv = fixture(dir, "readings.csv", kSynthetic);
+    const mwtest::CliResult table =
+        mwtest::calc::run(evaluate(csv, {"--divisions", "50", "--reference", "0.02%rdg+0.01%rng"}));
+    INFO(table.outText().toStdString());
+    REQUIRE(table.exitCode == 0);
+    // The 10 V point of the first test case (values sourced there): error 0.16 V, limit
+    // 0.15 V, U 0.024 V, TUR 6.25, written with SI prefixes like every number the app shows.
+    const QStringList lines = table.outText().split(QLatin1Char('\n'));
+    const auto top = std::find_if(lines.begin(), lines.end(), [](const QString& line) {
+        return line.trimmed().startsWith(QStringLiteral("10.000 V"));
+    });
+    REQUIRE(top != lines.end());
+    CHECK(top->contains(QStringLiteral("160 mV")));
+    CHECK(top->contains(QStringLiteral("150 mV")));
+    CHECK(top->contains(QStringLiteral("24 mV")));
+    CHECK(top->contains(QStringLiteral("6.25")));
+    CHECK_FALSE(top->contains(QStringLiteral("0.16")));
 }

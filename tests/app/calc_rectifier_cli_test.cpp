@@ -1,45 +1,25 @@
 // `meterwright calc multiplier|indication|waveform` run as a separate process: JSON keys and
 // values against textbook examples and form factors, and bad input giving exit code 2.
 #include "support/approx.h"
+#include "support/cli_process.h"
 
 #include <catch2/catch.hpp>
 
-#include <QJsonDocument>
+#include <QFile>
 #include <QJsonObject>
-#include <QProcess>
 #include <QStringList>
+#include <QTemporaryDir>
 
 #include <cmath>
+#include <numbers>
 
 using mwtest::absolute;
+using mwtest::args;
 using mwtest::relative;
+using mwtest::calc::requireUsageError;
+using mwtest::calc::runJson;
 
 namespace {
-
-struct Result {
-    int exitCode = -1;
-    QByteArray out;
-    QByteArray err;
-};
-
-Result runCalc(const QStringList& arguments) {
-    QProcess process;
-    process.start(QStringLiteral(MW_BINARY_DIR "/app/meterwright"),
-                  QStringList{QStringLiteral("calc")} + arguments);
-    REQUIRE(process.waitForFinished(30000));
-    REQUIRE(process.exitStatus() == QProcess::NormalExit);
-    return {process.exitCode(), process.readAllStandardOutput(), process.readAllStandardError()};
-}
-
-QJsonObject runJson(const QStringList& arguments) {
-    const Result result = runCalc(arguments + QStringList{QStringLiteral("--json")});
-    INFO("stderr: " << result.err.toStdString());
-    REQUIRE(result.exitCode == 0);
-    QJsonParseError error{};
-    const QJsonDocument document = QJsonDocument::fromJson(result.out, &error);
-    REQUIRE(error.error == QJsonParseError::NoError);
-    return document.object();
-}
 
 double number(const QJsonObject& json, const char* key) {
     INFO("key " << key);
@@ -47,23 +27,13 @@ double number(const QJsonObject& json, const char* key) {
     return json.value(QString::fromUtf8(key)).toDouble();
 }
 
-// Exit code 2 and exactly one line on stderr that contains `words`.
-void requireUsageError(const QStringList& arguments, const char* words) {
-    const Result result = runCalc(arguments);
-    INFO("arguments: " << arguments.join(QLatin1Char(' ')).toStdString());
-    INFO("stderr: " << result.err.toStdString());
-    CHECK(result.exitCode == 2);
-    CHECK(result.err.count('\n') == 1);
-    CHECK(result.err.contains(words));
-    CHECK(result.out.isEmpty());
-}
-
-QStringList args(std::initializer_list<const char*> words) {
-    QStringList list;
-    for (const char* word : words) {
-        list << QString::fromUtf8(word);
-    }
-    return list;
+// Writes `text` to `name` in `dir` and returns the path.
+QString fixture(const QTemporaryDir& dir, const char* name, const QByteArray& text) {
+    const QString path = dir.filePath(QString::fromUtf8(name));
+    QFile file(path);
+    REQUIRE(file.open(QIODevice::WriteOnly | QIODevice::Text));
+    file.write(text);
+    return path;
 }
 
 } // namespace
@@ -188,4 +158,108 @@ TEST_CASE("calc multiplier/indication/waveform: bad input gives exit code 2 and 
     requireUsageError(args({"indication", "--ifs", "1mA", "--rm", "1k", "--rs", "6k", "--range",
                             "10V", "--input", "2V"}),
                       "--rectifier is required");
+}
+
+TEST_CASE("calc multiplier: effective sensitivity from the rms input current at full scale") {
+    // Helfrick & Cooper Example 4-4: a 1 mA movement has S = 1/I_fs = 1 000 Ω/V on DC, and a
+    // 10 V range presents 10 kΩ.
+    const QJsonObject dc =
+        runJson(args({"multiplier", "--ifs", "1mA", "--rm", "100", "--range", "10V"}));
+    CHECK(number(dc, "effective_sensitivity_ohm_per_volt") == relative(1000.0, 1e-12));
+    CHECK(number(dc, "input_resistance_ohm") == relative(10000.0, 1e-12));
+    // Helfrick & Cooper Example 4-9: with ideal diodes a bridge carries the whole sine through
+    // R_T = 0.9 × 10 V / 1 mA ≈ 9 kΩ (exact 2√2/π: 9 003.16 Ω), so the source sees 900 Ω/V,
+    // the same as the textbook AC sensitivity.
+    const QJsonObject ideal = runJson(args({"multiplier", "--ifs", "1mA", "--rm", "50", "--range",
+                                            "10V", "--rectifier", "bridge", "--diode", "ideal"}));
+    CHECK(number(ideal, "effective_sensitivity_ohm_per_volt") == relative(900.316, 1e-6));
+    CHECK(number(ideal, "input_resistance_ohm") == relative(9003.16, 1e-6));
+    // Real diodes conduct only near the crests: the current is peakier than a sine, its rms per
+    // average is above π/(2√2), so the source sees less than the ideal 0.9 × 1 000 Ω/V, while
+    // sensitivity_ohm_per_volt keeps the textbook value (common practice for the datasheet
+    // figure). The key is 1 / I_rms by its definition in --help.
+    const QJsonObject real = runJson(args({"multiplier", "--ifs", "1mA", "--rm", "1k", "--range",
+                                           "10V", "--rectifier", "bridge", "--diode", "silicon"}));
+    CHECK(number(real, "sensitivity_ohm_per_volt") == relative(900.316, 1e-6));
+    CHECK(number(real, "effective_sensitivity_ohm_per_volt") < 900.316 * (1.0 - 1e-3));
+    CHECK(number(real, "effective_sensitivity_ohm_per_volt") ==
+          relative(1.0 / number(real, "multiplier_rms_current_a"), 1e-12));
+    CHECK(number(real, "input_resistance_ohm") ==
+          relative(10.0 * number(real, "effective_sensitivity_ohm_per_volt"), 1e-12));
+}
+
+TEST_CASE("calc indication checks --waveform even for a DC voltmeter") {
+    const QStringList dc = args({"indication", "--rectifier", "none", "--ifs", "1mA", "--rm", "1k",
+                                 "--rs", "9k", "--range", "10V", "--input", "5V"});
+    requireUsageError(dc + args({"--waveform", "sawtooth"}), "--waveform \"sawtooth\"");
+    // R_s = V/I_fs − R_m (Helfrick & Cooper §4): 9 kΩ + 1 kΩ at 1 mA is a 10 V range, so 5 V
+    // reads 5 V; a valid shape is accepted and, on DC, has nothing to change.
+    const QJsonObject json = runJson(dc + args({"--waveform", "square"}));
+    CHECK(number(json, "indicated") == relative(5.0, 1e-12));
+}
+
+TEST_CASE("calc waveform --samples: one period from a file") {
+    QTemporaryDir dir;
+    REQUIRE(dir.isValid());
+    // A square wave as samples, one value per line: form factor 1, and an average-responding
+    // meter reads +11.07 % (exact π/(2√2); instrument manuals' waveform tables print +11 %).
+    const QString square = fixture(dir, "square.txt", "2V\n2\n2\n-2\n-2 V\n-2\n");
+    const QJsonObject fromLines = runJson(args({"waveform", "--samples"}) + QStringList{square});
+    CHECK(fromLines.value(QStringLiteral("waveform")).toString() == QStringLiteral("sampled"));
+    CHECK(fromLines.value(QStringLiteral("samples")).toInt() == 6);
+    CHECK(number(fromLines, "rms_v") == relative(2.0, 1e-12));
+    CHECK(number(fromLines, "form_factor") == relative(1.0, 1e-12));
+    CHECK(number(fromLines, "error_percent") == absolute(11.07, 0.005));
+    // A sine of 1 V rms in 720 samples, as a ';' CSV with a decimal comma and a column v: the
+    // samples average sin² to exactly 1/2, and |sin| to 2/π within 1e-5 (exact forms; the form
+    // factor π/(2√2) = 1.110721).
+    QByteArray csv = "t;v\n";
+    for (int i = 0; i < 720; ++i) {
+        const double volts = std::numbers::sqrt2 * std::sin(2.0 * std::numbers::pi * i / 720.0);
+        csv += QByteArray::number(i) + ';' + QByteArray::number(volts, 'g', 17).replace('.', ',') +
+               '\n';
+    }
+    const QString sine = fixture(dir, "sine.csv", csv);
+    const QJsonObject fromCsv =
+        runJson(args({"waveform", "--decimal-comma", "--samples"}) + QStringList{sine});
+    CHECK(number(fromCsv, "rms_v") == relative(1.0, 1e-12));
+    CHECK(number(fromCsv, "form_factor") == relative(1.110721, 1e-5));
+    CHECK(number(fromCsv, "reading_v") == relative(1.0, 1e-5));
+    CHECK(number(fromCsv, "mean_v") == absolute(0.0, 1e-12));
+}
+
+TEST_CASE("calc waveform --samples names the line of a bad sample") {
+    QTemporaryDir dir;
+    REQUIRE(dir.isValid());
+    const QString word = fixture(dir, "word.txt", "1\n\n0\nminus one\n");
+    requireUsageError(args({"waveform", "--samples"}) + QStringList{word}, "word.txt line 4");
+    const QString amps = fixture(dir, "amps.csv", "n,v\n1,1\n2,-1mA\n");
+    requireUsageError(args({"waveform", "--samples"}) + QStringList{amps},
+                      "amps.csv line 3, column v");
+    const QString ragged = fixture(dir, "ragged.csv", "n,v\n1,1\n2,-1,3\n");
+    requireUsageError(args({"waveform", "--samples"}) + QStringList{ragged},
+                      "ragged.csv line 3 has 3 cells");
+    const QString one = fixture(dir, "one.txt", "1\n");
+    requireUsageError(args({"waveform", "--samples"}) + QStringList{one}, "at least 2 samples");
+    requireUsageError(args({"waveform", "--samples"}) +
+                          QStringList{dir.filePath(QStringLiteral("missing.txt"))},
+                      "--samples");
+    requireUsageError(args({"waveform", "--rms", "1V", "--samples"}) + QStringList{one}, "--rms");
+}
+
+TEST_CASE("calc indication and waveform print numbers in engineering notation") {
+    // Square of 1 V rms: +11.07 % (exact π/(2√2), as above), shown with the percent sign of the
+    // app's one number format instead of a fixed count of decimals.
+    const mwtest::CliResult wave = mwtest::calc::run(args({"waveform", "--waveform", "square"}));
+    INFO(wave.outText().toStdString());
+    REQUIRE(wave.exitCode == 0);
+    CHECK(wave.outText().contains(QStringLiteral("form factor       1\n")));
+    CHECK(wave.outText().contains(QStringLiteral("1.1107 V (11.1 %)")));
+    // Helfrick & Cooper Example 4-10 as above: +0.0351 % of range.
+    const mwtest::CliResult indication = mwtest::calc::run(args(
+        {"indication", "--rectifier", "half", "--ifs", "1mA", "--rm", "100", "--rsh", "100", "--rs",
+         "1800", "--range", "10V", "--input", "10V", "--diode", "ideal", "--diode-rf", "400"}));
+    INFO(indication.outText().toStdString());
+    REQUIRE(indication.exitCode == 0);
+    CHECK(indication.outText().contains(QStringLiteral("0.0351 % of range")));
 }

@@ -1,0 +1,53 @@
+// Small CSV files handed to headless commands (readings, sampled waveforms): the separator taken
+// from the header line, quoted cells, and 1-based line numbers for every message.
+#pragma once
+
+#include <QChar>
+#include <QString>
+#include <QStringList>
+
+#include <vector>
+
+namespace mw::cli {
+
+// One line of the file that holds data: its 1-based number in the file and its text.
+struct CsvLine {
+    int number = 0;
+    QString text;
+};
+
+struct CsvRow {
+    int line = 0; // 1-based line number in the file
+    QStringList cells;
+};
+
+struct CsvTable {
+    QString path;
+    QChar separator = QLatin1Char(',');
+    CsvRow header;
+    std::vector<CsvRow> rows;
+
+    // Index of the header cell named `name` (case-insensitive), -1 when absent. UsageError when
+    // the header names it twice.
+    int column(const QString& name) const;
+    // "FILE line N", the prefix of every message about that line.
+    QString where(int line) const;
+};
+
+// The lines of `path` that hold data: a UTF-8 byte-order mark, blank lines and lines starting
+// with '#' are skipped. A file that cannot be read is a UsageError naming `option`.
+std::vector<CsvLine> readDataLines(const QString& path, const QString& option);
+
+// ';' when the header line holds one (the separator of spreadsheets set to a decimal comma),
+// otherwise ','.
+QChar separatorOf(const QString& headerLine);
+
+// Splits one line at `separator` outside double quotes ("" inside quotes is one quote) and trims
+// each cell. An unclosed quote is a UsageError starting with `where`.
+QStringList splitCsvLine(const QString& line, QChar separator, const QString& where);
+
+// The first line is the header; every other line must have exactly as many cells as the header,
+// otherwise a UsageError names the line, both counts and the separator in use.
+CsvTable tableFromLines(const QString& path, const std::vector<CsvLine>& lines);
+
+} // namespace mw::cli

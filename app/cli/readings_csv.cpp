@@ -1,0 +1,107 @@
+// Reading the CSV of `calc evaluate`: one reading per row, each remembered with its line.
+#include "app/cli/readings_csv.h"
+
+#include "app/cli/cli_support.h"
+#include "app/cli/csv_table.h"
+#include "core/units/quantity.h"
+
+#include <QRegularExpression>
+
+namespace mw::cli {
+namespace {
+
+struct CsvColumns {
+    int applied = -1;
+    int indicated = -1;
+    int direction = -1;
+    int repeat = -1;
+};
+
+CsvColumns columnsOf(const CsvTable& table) {
+    CsvColumns columns{
+        table.column(QStringLiteral("applied")), table.column(QStringLiteral("indicated")),
+        table.column(QStringLiteral("direction")), table.column(QStringLiteral("repeat"))};
+    if (columns.applied < 0 || columns.indicated < 0) {
+        throw UsageError(QStringLiteral("%1: the header must name the columns applied and "
+                                        "indicated (optional: direction, repeat)")
+                             .arg(table.where(table.header.line)));
+    }
+    return columns;
+}
+
+double cellValue(const QString& where, const QString& cell, Unit unit, bool decimalComma) {
+    if (cell.isEmpty()) {
+        throw UsageError(where + QStringLiteral(": empty"));
+    }
+    try {
+        ParseOptions options;
+        options.decimalComma = decimalComma;
+        return parseValue(cell.toStdString(), unit, options);
+    } catch (const QuantityError& error) {
+        throw UsageError(
+            QStringLiteral("%1 \"%2\": %3").arg(where, cell, QString::fromStdString(error.what())));
+    }
+}
+
+EvaluationReading readRow(const CsvTable& table, const CsvRow& row, const CsvColumns& columns,
+                          Unit unit, bool decimalComma) {
+    auto cellAt = [&row](int column) {
+        return column >= 0 ? row.cells[column] : QString();
+    };
+    auto where = [&](const char* column) {
+        return QStringLiteral("%1, column %2").arg(table.where(row.line), QLatin1String(column));
+    };
+    EvaluationReading reading;
+    reading.applied = cellValue(where("applied"), cellAt(columns.applied), unit, decimalComma);
+    reading.indicated =
+        cellValue(where("indicated"), cellAt(columns.indicated), unit, decimalComma);
+    const QString direction = cellAt(columns.direction).toLower();
+    if (direction == QStringLiteral("down")) {
+        reading.direction = Direction::Down;
+    } else if (!direction.isEmpty() && direction != QStringLiteral("up")) {
+        throw UsageError(where("direction") +
+                         QStringLiteral(" \"%1\": expected up or down").arg(direction));
+    }
+    const QString repeat = cellAt(columns.repeat);
+    if (!repeat.isEmpty()) {
+        bool ok = false;
+        reading.repeat = repeat.toInt(&ok);
+        if (!ok || reading.repeat < 1) {
+            throw UsageError(where("repeat") +
+                             QStringLiteral(" \"%1\": expected a whole number >= 1").arg(repeat));
+        }
+    }
+    return reading;
+}
+
+} // namespace
+
+ReadingsFile readReadingsCsv(const QString& path, Unit unit, bool decimalComma) {
+    const CsvTable table = tableFromLines(path, readDataLines(path, QStringLiteral("readings")));
+    const CsvColumns columns = columnsOf(table);
+    ReadingsFile file{path, {}, {}};
+    for (const CsvRow& row : table.rows) {
+        file.readings.push_back(readRow(table, row, columns, unit, decimalComma));
+        file.lines.push_back(row.line);
+    }
+    if (file.readings.empty()) {
+        throw UsageError(QStringLiteral("%1: no readings after the header").arg(path));
+    }
+    return file;
+}
+
+QString messageWithCsvLine(const QString& message, const ReadingsFile& file) {
+    static const QRegularExpression reading(QStringLiteral("^evaluation: reading (\\d+) "));
+    const QRegularExpressionMatch match = reading.match(message);
+    const qsizetype index = match.hasMatch() ? match.captured(1).toLongLong() - 1 : -1;
+    if (index < 0 || index >= static_cast<qsizetype>(file.lines.size())) {
+        return message;
+    }
+    return QStringLiteral("%1 line %2 (reading %3) ")
+               .arg(file.path)
+               .arg(file.lines[static_cast<std::size_t>(index)])
+               .arg(index + 1) +
+           message.mid(match.capturedLength());
+}
+
+} // namespace mw::cli
