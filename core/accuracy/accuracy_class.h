@@ -14,8 +14,9 @@ std::span<const double> classIndexSeries();
 bool isStandardClassIndex(double classIndex);
 
 // The measuring range of one range of an instrument, in the unit of that range. For a
-// strongly non-linear scale the fiducial value is the scale length (in mm of scale) and has to
-// be given in `fiducialOverride`, since no electrical limit defines it.
+// strongly non-linear scale IEC 60051-1 takes the scale length as the fiducial value and states
+// errors in length of scale; this engine states every error in the range's unit, so the user
+// gives the fiducial value in that unit in `fiducialOverride` (no electrical limit defines it).
 struct ScaleRange {
     double lower = 0.0; // lower limit of the measuring range (negative for centre zero)
     double upper = 0.0; // upper limit of the measuring range
