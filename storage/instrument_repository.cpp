@@ -1,11 +1,13 @@
 // The instrument register and its due list.
 #include "storage/instrument_repository.h"
 
+#include "core/accuracy/accuracy_class.h"
 #include "storage/sql_support.h"
 #include "storage/transaction.h"
 #include "storage/workbook.h"
 
 #include <algorithm>
+#include <cmath>
 #include <map>
 #include <set>
 
@@ -58,6 +60,24 @@ RangeSpec rangeFrom(const QSqlQuery& q) {
     return r;
 }
 
+// The class index as the exact member of the IEC 60051-2 series it matches (the table's CHECK
+// compares exactly), or a clear error before any SQL runs.
+double classIndexOf(const Instrument& i) {
+    if (isStandardClassIndex(i.accuracy_class)) {
+        for (double index : classIndexSeries()) {
+            if (std::abs(index - i.accuracy_class) <= 1e-9 * index) {
+                return index;
+            }
+        }
+    }
+    throw WorkbookError(Kind::BadInput,
+                        QStringLiteral("instrument \"%1\": accuracy class %2 is not a class index "
+                                       "of IEC 60051-2 (0.05, 0.1, 0.2, 0.3, 0.5, 1, 1.5, 2, 2.5, "
+                                       "3, 5)")
+                            .arg(QString::fromStdString(i.asset_tag))
+                            .arg(i.accuracy_class));
+}
+
 void bindFields(QSqlQuery& q, const Instrument& i) {
     q.addBindValue(QString::fromStdString(i.asset_tag));
     q.addBindValue(QString::fromStdString(i.description));
@@ -69,7 +89,7 @@ void bindFields(QSqlQuery& q, const Instrument& i) {
     q.addBindValue(i.movement.ohms_coil);
     q.addBindValue(sql::enumText(i.scale_type));
     q.addBindValue(i.scale_divisions);
-    q.addBindValue(i.accuracy_class);
+    q.addBindValue(classIndexOf(i));
     q.addBindValue(i.interval_days);
     q.addBindValue(QString::fromStdString(i.location));
     q.addBindValue(QString::fromStdString(i.owner));

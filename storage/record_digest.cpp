@@ -1,4 +1,11 @@
 // Canonical text of an approved record, the SHA-256 chain, and its verification.
+//
+// The text holds everything the conformity decision rests on: the session and its rows, the
+// instrument as specified (class, scale, movement, the ranges used) and who signed. Per-point
+// errors and verdicts are not written: core/evaluation computes them as a pure function of the
+// readings and that specification, so digesting the inputs covers them. The range's nominal
+// multiplier or shunt is left out on purpose: an adjustment may change it after approval, and
+// the record's resistor checks hold what was actually measured.
 #include "storage/record_digest.h"
 
 #include "storage/session_loader.h"
@@ -11,6 +18,7 @@
 #include <algorithm>
 #include <charconv>
 #include <map>
+#include <set>
 #include <tuple>
 
 namespace mw::storage {
@@ -89,6 +97,45 @@ void writeHeader(Writer& w, const CalibrationSession& s) {
     w.line("amended", stamp(s.amended_at));
 }
 
+void writeSignatory(Writer& w, const char* role, const std::optional<User>& user) {
+    w.line(role, user ? escaped(user->login) + '|' + escaped(user->full_name) : "-");
+}
+
+void writeContext(Writer& w, const CalibrationSession& s, const RecordContext& context) {
+    writeSignatory(w, "technician_signature", context.technician);
+    writeSignatory(w, "reviewer_signature", context.reviewer);
+    if (!context.instrument) {
+        w.line("instrument_spec", "missing");
+        return;
+    }
+    const Instrument& i = *context.instrument;
+    w.line("instrument_spec",
+           escaped(i.asset_tag) + '|' + escaped(i.serial) + '|' + std::string(toText(i.kind)) +
+               '|' + number(i.movement.amps_fs) + '|' + number(i.movement.ohms_coil) + '|' +
+               std::string(toText(i.scale_type)) + '|' + std::to_string(i.scale_divisions) + '|' +
+               number(i.accuracy_class));
+    std::set<std::int64_t> used;
+    for (const Reading& r : s.readings) {
+        used.insert(r.range_id);
+    }
+    for (const ResistorCheck& c : s.resistor_checks) {
+        used.insert(c.range_id);
+    }
+    for (std::int64_t id : used) {
+        const auto range = std::find_if(i.ranges.begin(), i.ranges.end(),
+                                        [id](const RangeSpec& r) { return r.id == id; });
+        if (range == i.ranges.end()) {
+            w.line("range_spec", std::to_string(id) + "|missing");
+            continue;
+        }
+        w.line("range_spec", std::to_string(id) + '|' + escaped(range->label) + '|' +
+                                 std::string(unitSymbol(range->unit)) + '|' +
+                                 number(range->lower_limit) + '|' + number(range->full_scale) +
+                                 '|' +
+                                 (range->fiducial_value ? number(*range->fiducial_value) : "-"));
+    }
+}
+
 void writeParts(Writer& w, const CalibrationSession& s) {
     std::vector<std::string> lines;
     for (const StandardUse& u : s.standards) {
@@ -161,6 +208,7 @@ std::vector<ChainRow> chainRows(const QSqlDatabase& db) {
 // The first complaint about the chain itself, or nullopt when every link holds.
 std::optional<std::pair<std::int64_t, QString>> checkChain(const QSqlDatabase& db,
                                                            VerificationReport& report) {
+    const RecordContexts contexts(db);
     std::map<std::int64_t, CalibrationSession> sessions;
     for (CalibrationSession& s : detail::loadSessions(
              db, QStringLiteral("s.id IN (SELECT session_id FROM record_chain)"), QVariant())) {
@@ -188,7 +236,7 @@ std::optional<std::pair<std::int64_t, QString>> checkChain(const QSqlDatabase& d
             return std::pair(s.id, who + QStringLiteral(": its state was changed to \"%1\"")
                                              .arg(sql::enumText(s.state)));
         }
-        if (chainDigest(row.previous, canonicalRecord(s)) != row.digest) {
+        if (chainDigest(row.previous, canonicalRecord(s, contexts.of(s))) != row.digest) {
             return std::pair(s.id, who + QStringLiteral(": its contents no longer match the "
                                                         "digest taken at approval"));
         }
@@ -200,9 +248,10 @@ std::optional<std::pair<std::int64_t, QString>> checkChain(const QSqlDatabase& d
 
 } // namespace
 
-QByteArray canonicalRecord(const CalibrationSession& session) {
+QByteArray canonicalRecord(const CalibrationSession& session, const RecordContext& context) {
     Writer writer;
     writeHeader(writer, session);
+    writeContext(writer, session, context);
     writeParts(writer, session);
     const std::string text = writer.take();
     return QByteArray(text.data(), qsizetype(text.size()));

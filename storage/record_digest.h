@@ -3,6 +3,7 @@
 #pragma once
 
 #include "core/model/calibration.h"
+#include "storage/record_context.h"
 
 #include <QByteArray>
 #include <QString>
@@ -15,9 +16,11 @@ namespace mw::storage {
 class Workbook;
 
 // Canonical serialisation (UTF-8, one "key=value" line per field, fixed order, readings sorted
-// by their key, numbers in shortest round-trip form). State and digest are not part of it: an
-// approved record later superseded keeps its digest.
-QByteArray canonicalRecord(const CalibrationSession& session);
+// by their key, numbers in shortest round-trip form), followed by the instrument's
+// conformity-defining specification, the ranges used and the signatories' login and name from
+// `context`. State and digest are not part of it: an approved record later superseded keeps
+// its digest.
+QByteArray canonicalRecord(const CalibrationSession& session, const RecordContext& context);
 
 // Lower-case hex SHA-256 of previousDigest + "\n" + canonical; previousDigest is "" for the
 // first record of a workbook.

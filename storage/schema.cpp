@@ -13,6 +13,11 @@
 namespace mw::storage::schema {
 namespace {
 
+// Accuracy classes are the class indices of IEC 60051-2 (the same series as
+// core/accuracy/accuracy_class.h). Times are ISO 8601 UTC text of one format, so they compare
+// as text: a session is submitted after it started (and, once out of the technician's hands,
+// after it finished) and approved after it was submitted.
+//
 // DOUBLE PRECISION, not REAL: PostgreSQL's REAL is single precision; SQLite stores both as
 // 8-byte floats.
 const char* const kVersion1Tables[] = {
@@ -42,7 +47,8 @@ const char* const kVersion1Tables[] = {
         scale_type TEXT NOT NULL CHECK (scale_type IN ('zero-at-end', 'zero-inside', 'no-zero',
                                                        'non-linear')),
         scale_divisions INTEGER NOT NULL CHECK (scale_divisions >= 0),
-        accuracy_class DOUBLE PRECISION NOT NULL CHECK (accuracy_class > 0 AND accuracy_class <= 10),
+        accuracy_class DOUBLE PRECISION NOT NULL
+            CHECK (accuracy_class IN (0.05, 0.1, 0.2, 0.3, 0.5, 1, 1.5, 2, 2.5, 3, 5)),
         interval_days INTEGER NOT NULL CHECK (interval_days > 0),
         location TEXT NOT NULL,
         owner TEXT NOT NULL,
@@ -103,6 +109,10 @@ const char* const kVersion1Tables[] = {
         amendment_reason TEXT NOT NULL,
         amended_at TEXT,
         CHECK (reviewer_id IS NULL OR reviewer_id <> technician_id),
+        CHECK (submitted_at IS NULL OR submitted_at >= started_at),
+        CHECK (state IN ('draft', 'returned') OR finished_at IS NULL
+               OR finished_at <= submitted_at),
+        CHECK (approved_at IS NULL OR (submitted_at IS NOT NULL AND approved_at >= submitted_at)),
         CHECK (decision_rule = 'guarded' OR guard_factor = 0),
         CHECK (state = 'draft' OR submitted_at IS NOT NULL),
         CHECK (state <> 'returned' OR length(return_comment) > 0),
@@ -119,8 +129,10 @@ const char* const kVersion1Tables[] = {
         due_date TEXT NOT NULL CHECK (due_date LIKE '____-__-__'),
         overdue_justification TEXT NOT NULL,
         UNIQUE (session_id, standard_id)))",
+    // A reading is identified by its natural key and stored in that key's b-tree only (no
+    // rowid table plus unique index): half the pages per reading, so quick_check on open reads
+    // a quarter less of a large workbook.
     R"(CREATE TABLE readings (
-        id {id},
         session_id INTEGER NOT NULL REFERENCES calibration_sessions (id) ON DELETE CASCADE,
         range_id INTEGER NOT NULL REFERENCES instrument_ranges (id),
         point_index INTEGER NOT NULL CHECK (point_index >= 0),
@@ -130,7 +142,8 @@ const char* const kVersion1Tables[] = {
         unit TEXT NOT NULL CHECK (unit IN ('V', 'A')),
         applied DOUBLE PRECISION NOT NULL,
         indicated DOUBLE PRECISION NOT NULL,
-        UNIQUE (session_id, range_id, point_index, direction, phase, repeat_number)))",
+        PRIMARY KEY (session_id, range_id, point_index, direction, phase, repeat_number))
+        {key_only})",
     R"(CREATE TABLE resistor_checks (
         id {id},
         session_id INTEGER NOT NULL REFERENCES calibration_sessions (id) ON DELETE CASCADE,
@@ -153,7 +166,7 @@ const char* const kVersion1Tables[] = {
     // One instrument's history; the due list (last approved calibration per instrument).
     "CREATE INDEX sessions_by_instrument ON calibration_sessions (instrument_id, started_at)",
     "CREATE INDEX sessions_by_state ON calibration_sessions (state, instrument_id, started_at)",
-    // Readings of a session come from the UNIQUE index, which starts with session_id.
+    // Readings of a session come from their primary key, which starts with session_id.
     "CREATE INDEX resistor_checks_by_session ON resistor_checks (session_id)",
     "CREATE INDEX adjustment_notes_by_session ON adjustment_notes (session_id)",
     "CREATE INDEX standard_specs_by_standard ON standard_specs (standard_id)",
@@ -183,6 +196,7 @@ void runAll(const QSqlDatabase& db, const char* const (&statements)[N], int vers
     for (const char* statement : statements) {
         QString text = QString::fromUtf8(statement);
         text.replace(QStringLiteral("{id}"), dialect::idColumn());
+        text.replace(QStringLiteral("{key_only}"), dialect::keyOnlyTableOption());
         sql::execText(db, text, QStringLiteral("creating schema version %1").arg(version));
     }
 }

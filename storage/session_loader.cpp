@@ -47,10 +47,17 @@ using Index = std::map<std::int64_t, CalibrationSession*>;
 template <typename Take>
 void forEachPart(const QSqlDatabase& db, const QString& columns, const QString& table,
                  const QString& condition, const QVariant& value, const Index& index, Take take) {
+    // Rows come in the order they were entered; readings, which have no id, in the order of a
+    // test plan (range, point, up before down, as-found before as-left, repeat).
+    const QString order =
+        table == QLatin1String("readings")
+            ? QStringLiteral("range_id, point_index, CASE direction WHEN 'up' THEN 0 ELSE 1 END, "
+                             "phase, repeat_number")
+            : QStringLiteral("id");
     QSqlQuery q = sql::prepare(
         db, QStringLiteral("SELECT session_id, %1 FROM %2 WHERE session_id IN (SELECT s.id FROM "
-                           "calibration_sessions s WHERE %3) ORDER BY session_id, id")
-                .arg(columns, table, condition));
+                           "calibration_sessions s WHERE %3) ORDER BY session_id, %4")
+                .arg(columns, table, condition, order));
     if (value.isValid()) {
         q.addBindValue(value);
     }

@@ -99,7 +99,8 @@ QString SessionRepository::approve(std::int64_t sessionId, std::int64_t reviewer
 
     const CalibrationSession record = loadOne(db, sessionId);
     const QString previous = lastDigest(db);
-    const QString digest = chainDigest(previous, canonicalRecord(record));
+    const RecordContexts contexts(db, record.instrument_id);
+    const QString digest = chainDigest(previous, canonicalRecord(record, contexts.of(record)));
     QSqlQuery seal = sql::prepare(db, QStringLiteral("INSERT INTO record_chain (session_id, "
                                                      "previous_digest, digest, recorded_at) "
                                                      "VALUES (?, ?, ?, ?)"));

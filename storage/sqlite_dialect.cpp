@@ -113,15 +113,89 @@ void createSessionStateTriggers(const QSqlDatabase& db) {
                 "IN ('reviewer', 'administrator'))) BEGIN SELECT RAISE(ABORT, "
                 "'calibration_sessions: the reviewer must be an active reviewer or administrator "
                 "other than the technician'); END"));
-    // No submission with a standard past its due date unless a justification is recorded.
+    // No submission with a standard past its due date unless a justification is recorded. An
+    // amendment corrects a record made earlier with the standards of that day, so its date of
+    // use (the start it keeps from the original) counts, not the day the correction is filed.
     run(db, QStringLiteral(
                 "CREATE TRIGGER sessions_standards_in_date BEFORE UPDATE OF state ON "
                 "calibration_sessions WHEN NEW.state = 'submitted' AND OLD.state <> 'submitted' "
                 "AND EXISTS (SELECT 1 FROM session_standards u WHERE u.session_id = NEW.id AND "
-                "u.due_date < substr(NEW.submitted_at, 1, 10) AND "
+                "u.due_date < substr(CASE WHEN NEW.supersedes_id IS NULL THEN NEW.submitted_at "
+                "ELSE NEW.started_at END, 1, 10) AND "
                 "length(trim(u.overdue_justification)) = 0) BEGIN SELECT RAISE(ABORT, "
                 "'calibration_sessions: a reference standard used is past its due date and no "
                 "justification is recorded'); END"));
+}
+
+// "OLD.a IS NOT NEW.a OR OLD.b IS NOT NEW.b ...": true when any of the columns changes.
+QString anyChanged(const QStringList& columns) {
+    QStringList changed;
+    for (const QString& column : columns) {
+        changed << QStringLiteral("OLD.%1 IS NOT NEW.%1").arg(column);
+    }
+    return QStringLiteral("(%1)").arg(changed.join(QStringLiteral(" OR ")));
+}
+
+// The certificate number and due date a session records for a standard are copies of the
+// standard's current certificate, taken when it is used, so an overdue standard cannot pass as
+// in date. An amendment may carry over the copies of the record it supersedes.
+void createStandardCopyTriggers(const QSqlDatabase& db) {
+    const QString copied = QStringLiteral(
+        "NOT EXISTS (SELECT 1 FROM reference_standards r WHERE r.id = NEW.standard_id AND "
+        "r.certificate_number = NEW.certificate_number AND r.due_date = NEW.due_date) AND NOT "
+        "EXISTS (SELECT 1 FROM calibration_sessions s JOIN session_standards o ON o.session_id = "
+        "s.supersedes_id WHERE s.id = NEW.session_id AND o.standard_id = NEW.standard_id AND "
+        "o.certificate_number = NEW.certificate_number AND o.due_date = NEW.due_date)");
+    const QString raise = QStringLiteral(
+        "BEGIN SELECT RAISE(ABORT, 'session_standards: the certificate number and due date "
+        "must be those of the reference standard''s current certificate (or, in an amendment, "
+        "those of the record it supersedes)'); END");
+    run(db, QStringLiteral("CREATE TRIGGER session_standards_current_insert BEFORE INSERT ON "
+                           "session_standards WHEN %1 %2")
+                .arg(copied, raise));
+    run(db, QStringLiteral("CREATE TRIGGER session_standards_current_update BEFORE UPDATE ON "
+                           "session_standards WHEN %1 AND %2 %3")
+                .arg(anyChanged({QStringLiteral("session_id"), QStringLiteral("standard_id"),
+                                 QStringLiteral("certificate_number"), QStringLiteral("due_date")}),
+                     copied, raise));
+}
+
+// What an approved record's conformity rests on (and its digest covers) stays as it was: the
+// instrument's identity, movement, scale and class, its ranges' limits, and the signatories.
+// Location, owner, status, interval, description and a range's nominal resistor stay editable.
+void createConformityTriggers(const QSqlDatabase& db) {
+    const QString sealed = QStringLiteral("state IN ('approved', 'superseded')");
+    run(db,
+        QStringLiteral(
+            "CREATE TRIGGER instruments_conformity_kept BEFORE UPDATE ON instruments WHEN %1 "
+            "AND EXISTS (SELECT 1 FROM calibration_sessions s WHERE s.instrument_id = OLD.id "
+            "AND s.%2) BEGIN SELECT RAISE(ABORT, 'instruments: an approved calibration record "
+            "refers to this instrument, so its asset tag, serial, kind, movement, scale and "
+            "accuracy class cannot change; register a new instrument or amend the record'); "
+            "END")
+            .arg(anyChanged({QStringLiteral("asset_tag"), QStringLiteral("serial"),
+                             QStringLiteral("kind"), QStringLiteral("movement_amps_fs"),
+                             QStringLiteral("movement_ohms"), QStringLiteral("scale_type"),
+                             QStringLiteral("scale_divisions"), QStringLiteral("accuracy_class")}),
+                 sealed));
+    run(db, QStringLiteral(
+                "CREATE TRIGGER instrument_ranges_conformity_kept BEFORE UPDATE ON "
+                "instrument_ranges WHEN %1 AND EXISTS (SELECT 1 FROM calibration_sessions s "
+                "WHERE s.instrument_id = OLD.instrument_id AND s.%2) BEGIN SELECT RAISE(ABORT, "
+                "'instrument_ranges: an approved calibration record refers to this instrument, so "
+                "a range''s label, unit, limits and fiducial value cannot change; register a new "
+                "instrument or amend the record'); END")
+                .arg(anyChanged({QStringLiteral("instrument_id"), QStringLiteral("label"),
+                                 QStringLiteral("unit"), QStringLiteral("lower_limit"),
+                                 QStringLiteral("full_scale"), QStringLiteral("fiducial_value")}),
+                     sealed));
+    run(db, QStringLiteral(
+                "CREATE TRIGGER users_signature_kept BEFORE UPDATE ON users WHEN %1 AND EXISTS "
+                "(SELECT 1 FROM calibration_sessions s WHERE (s.technician_id = OLD.id OR "
+                "s.reviewer_id = OLD.id) AND s.%2) BEGIN SELECT RAISE(ABORT, 'users: this user "
+                "signed approved calibration records, so the login and name cannot change; add a "
+                "new user and deactivate this one'); END")
+                .arg(anyChanged({QStringLiteral("login"), QStringLiteral("full_name")}), sealed));
 }
 
 void createFrozenSessionTriggers(const QSqlDatabase& db) {
@@ -217,14 +291,18 @@ void createAuditTriggersFor(const QSqlDatabase& db, const QString& table) {
     const QString oldJson = jsonOf(columns, QStringLiteral("OLD"));
     const QString newJson = jsonOf(columns, QStringLiteral("NEW"));
     const QString null = QStringLiteral("NULL");
+    // A reading has no id of its own: it is logged under its session's id, and its values
+    // (logged on update and delete) name the reading by its key.
+    const QString idColumn =
+        columns.contains(QLatin1String("id")) ? QStringLiteral("id") : QStringLiteral("session_id");
     run(db, QStringLiteral("CREATE TRIGGER audit_%1_insert AFTER INSERT ON %1 BEGIN %2 END")
-                .arg(table, insert.arg(now, table, QStringLiteral("NEW.id"),
+                .arg(table, insert.arg(now, table, QStringLiteral("NEW.") + idColumn,
                                        QStringLiteral("insert"), null, null)));
     run(db, QStringLiteral("CREATE TRIGGER audit_%1_update AFTER UPDATE ON %1 BEGIN %2 END")
-                .arg(table, insert.arg(now, table, QStringLiteral("NEW.id"),
+                .arg(table, insert.arg(now, table, QStringLiteral("NEW.") + idColumn,
                                        QStringLiteral("update"), oldJson, newJson)));
     run(db, QStringLiteral("CREATE TRIGGER audit_%1_delete AFTER DELETE ON %1 BEGIN %2 END")
-                .arg(table, insert.arg(now, table, QStringLiteral("OLD.id"),
+                .arg(table, insert.arg(now, table, QStringLiteral("OLD.") + idColumn,
                                        QStringLiteral("delete"), oldJson, null)));
 }
 
@@ -233,19 +311,41 @@ int intPragma(const QSqlDatabase& db, const QString& pragma) {
         .toInt();
 }
 
+// SQLite answers a check with one row per problem, and a row may itself hold several lines
+// (b-tree problems come as one text under a "*** in database main ***" heading). Callers show
+// the verdict on one line, so it is summarised as the first problem and a count of the rest.
 QString checkPragma(const QSqlDatabase& db, const QString& pragma) {
     QSqlQuery query(db);
     query.setForwardOnly(true);
     if (!query.exec(QStringLiteral("PRAGMA ") + pragma)) {
         throw sql::errorFrom(query.lastError(), QStringLiteral("running ") + pragma);
     }
-    return query.next() ? query.value(0).toString() : QStringLiteral("no answer");
+    QStringList problems;
+    while (query.next()) {
+        for (const QString& line : query.value(0).toString().split(QLatin1Char('\n'))) {
+            const QString trimmed = line.trimmed();
+            if (!trimmed.isEmpty() && !trimmed.startsWith(QLatin1String("***"))) {
+                problems << trimmed;
+            }
+        }
+    }
+    if (problems.isEmpty()) {
+        return QStringLiteral("no answer");
+    }
+    if (problems.size() == 1) {
+        return problems.first();
+    }
+    return QStringLiteral("%1 (and %2 more)").arg(problems.first()).arg(problems.size() - 1);
 }
 
 } // namespace
 
 QString idColumn() {
     return QStringLiteral("INTEGER PRIMARY KEY");
+}
+
+QString keyOnlyTableOption() {
+    return QStringLiteral("WITHOUT ROWID");
 }
 
 QString nowUtcExpression() {
@@ -321,6 +421,8 @@ void createIntegrityTriggers(const QSqlDatabase& db) {
     createSessionStateTriggers(db);
     createFrozenSessionTriggers(db);
     createRecordTriggers(db);
+    createStandardCopyTriggers(db);
+    createConformityTriggers(db);
 }
 
 void createAuditTriggers(const QSqlDatabase& db) {

@@ -16,6 +16,9 @@ constexpr int kApplicationId = 0x4D57424B;
 
 // Column type of surrogate keys (PostgreSQL: "BIGINT GENERATED ALWAYS AS IDENTITY PRIMARY KEY").
 QString idColumn();
+// Table option for a table stored in its primary key's b-tree alone (SQLite's WITHOUT ROWID;
+// empty where tables are heaps anyway).
+QString keyOnlyTableOption();
 // Expression for "now" as ISO 8601 UTC with milliseconds, used by the audit triggers.
 QString nowUtcExpression();
 

@@ -73,7 +73,10 @@ int runVerify(const QStringList& arguments) {
         printReport(report, path, parser.isSet(QStringLiteral("json")));
         return report.sound() ? 0 : kCheckFailed;
     } catch (const storage::WorkbookError& error) {
-        throw UsageError(QStringLiteral("cannot open the workbook: ") + error.message());
+        // One line on stderr whatever SQLite said: line breaks inside its text are folded.
+        QString message = error.message();
+        message.replace(QLatin1Char('\n'), QStringLiteral("; "));
+        throw UsageError(QStringLiteral("cannot open the workbook: ") + message.simplified());
     }
 }
 

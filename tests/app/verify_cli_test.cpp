@@ -4,35 +4,23 @@
 #include "storage/session_repository.h"
 #include "storage/user_repository.h"
 #include "storage/workbook.h"
+#include "support/cli_process.h"
 
 #include <catch2/catch.hpp>
 
 #include <QFile>
 #include <QJsonDocument>
 #include <QJsonObject>
-#include <QProcess>
 #include <QSqlDatabase>
 #include <QSqlQuery>
 #include <QTemporaryDir>
 
 #include <chrono>
 
+using mwtest::CliResult;
+using mwtest::runMeterwright;
+
 namespace {
-
-struct Run {
-    int exitCode = -1;
-    QString out;
-    QString err;
-};
-
-Run meterwright(const QStringList& arguments) {
-    QProcess process;
-    process.start(QStringLiteral(MW_BINARY_DIR "/app/meterwright"), arguments);
-    REQUIRE(process.waitForFinished(120'000));
-    REQUIRE(process.exitStatus() == QProcess::NormalExit);
-    return Run{process.exitCode(), QString::fromUtf8(process.readAllStandardOutput()),
-               QString::fromUtf8(process.readAllStandardError())};
-}
 
 mw::Timestamp day(unsigned d, int hour) {
     using namespace std::chrono;
@@ -90,18 +78,50 @@ void tamper(const QString& path, std::int64_t sessionId) {
     QSqlDatabase::removeDatabase(name);
 }
 
+// Damages a workbook the way a failing disk would: a filler table large enough to need an
+// interior b-tree page is added, then that page's cell pointers are overwritten, which makes
+// quick_check report many problems.
+void damage(const QString& path) {
+    const QString name = QStringLiteral("damage");
+    qint64 offset = 0;
+    {
+        QSqlDatabase db = QSqlDatabase::addDatabase(QStringLiteral("QSQLITE"), name);
+        db.setDatabaseName(path);
+        REQUIRE(db.open());
+        QSqlQuery q(db);
+        REQUIRE(q.exec(QStringLiteral("CREATE TABLE filler (id INTEGER PRIMARY KEY, t TEXT)")));
+        REQUIRE(q.exec(QStringLiteral(
+            "WITH RECURSIVE n(i) AS (SELECT 1 UNION ALL SELECT i + 1 FROM n WHERE i < 3000) "
+            "INSERT INTO filler (t) SELECT printf('row %05d of the filler', i) FROM n")));
+        REQUIRE(q.exec(QStringLiteral("SELECT rootpage FROM sqlite_master WHERE name = "
+                                      "'filler'")));
+        REQUIRE(q.next());
+        const qint64 root = q.value(0).toLongLong();
+        REQUIRE(q.exec(QStringLiteral("PRAGMA page_size")));
+        REQUIRE(q.next());
+        offset = (root - 1) * q.value(0).toLongLong();
+        q.finish();
+        db.close();
+    }
+    QSqlDatabase::removeDatabase(name);
+    QFile file(path);
+    REQUIRE(file.open(QIODevice::ReadWrite));
+    REQUIRE(file.seek(offset + 8));
+    file.write(QByteArray(192, char(0xAB)));
+}
+
 } // namespace
 
 TEST_CASE("verify: a sound workbook exits 0 and says what was checked", "[verify]") {
     QTemporaryDir dir;
     const QString path = dir.filePath(QStringLiteral("lab.mwb"));
     writeWorkbook(path);
-    const Run run = meterwright({QStringLiteral("verify"), path});
+    const CliResult run = runMeterwright({QStringLiteral("verify"), path});
     INFO(run.out.toStdString() << run.err.toStdString());
     CHECK(run.exitCode == 0);
-    CHECK(run.out.contains(QStringLiteral("integrity check: ok")));
-    CHECK(run.out.contains(QStringLiteral("recomputed and matched: 2")));
-    CHECK(run.out.contains(QStringLiteral("result: sound")));
+    CHECK(run.outText().contains(QStringLiteral("integrity check: ok")));
+    CHECK(run.outText().contains(QStringLiteral("recomputed and matched: 2")));
+    CHECK(run.outText().contains(QStringLiteral("result: sound")));
     CHECK(run.err.isEmpty());
 }
 
@@ -110,10 +130,11 @@ TEST_CASE("verify: an edit behind the app's back exits 1 naming the record", "[v
     const QString path = dir.filePath(QStringLiteral("lab.mwb"));
     const std::int64_t second = writeWorkbook(path);
     tamper(path, second);
-    const Run run = meterwright({QStringLiteral("verify"), path, QStringLiteral("--json")});
+    const CliResult run =
+        runMeterwright({QStringLiteral("verify"), path, QStringLiteral("--json")});
     INFO(run.out.toStdString() << run.err.toStdString());
     CHECK(run.exitCode == 1);
-    const QJsonObject report = QJsonDocument::fromJson(run.out.toUtf8()).object();
+    const QJsonObject report = QJsonDocument::fromJson(run.out).object();
     CHECK_FALSE(report.value(QStringLiteral("sound")).toBool());
     CHECK(report.value(QStringLiteral("records_checked")).toInt() == 1);
     CHECK(report.value(QStringLiteral("first_mismatch_session")).toInteger() == second);
@@ -125,9 +146,9 @@ TEST_CASE("verify: an edit behind the app's back exits 1 naming the record", "[v
 TEST_CASE("verify: files it cannot open exit 2 with the reason", "[verify]") {
     QTemporaryDir dir;
     const QString missing = dir.filePath(QStringLiteral("none.mwb"));
-    Run run = meterwright({QStringLiteral("verify"), missing});
+    CliResult run = runMeterwright({QStringLiteral("verify"), missing});
     CHECK(run.exitCode == 2);
-    CHECK(run.err.contains(QStringLiteral("does not exist")));
+    CHECK(run.errText().contains(QStringLiteral("does not exist")));
     CHECK_FALSE(QFile::exists(missing));
 
     const QString text = dir.filePath(QStringLiteral("notes.txt"));
@@ -136,12 +157,28 @@ TEST_CASE("verify: files it cannot open exit 2 with the reason", "[verify]") {
         REQUIRE(file.open(QIODevice::WriteOnly));
         file.write("not a workbook at all\n");
     }
-    run = meterwright({QStringLiteral("verify"), text});
+    run = runMeterwright({QStringLiteral("verify"), text});
     CHECK(run.exitCode == 2);
-    CHECK(run.err.contains(QStringLiteral("not an SQLite database")));
-    CHECK(run.err.count(QLatin1Char('\n')) == 1);
+    CHECK(run.errText().contains(QStringLiteral("not an SQLite database")));
+    CHECK(run.errText().count(QLatin1Char('\n')) == 1);
 
-    run = meterwright({QStringLiteral("verify")});
+    run = runMeterwright({QStringLiteral("verify")});
     CHECK(run.exitCode == 2);
-    CHECK(run.err.contains(QStringLiteral("exactly one WORKBOOK")));
+    CHECK(run.errText().contains(QStringLiteral("exactly one WORKBOOK")));
+}
+
+TEST_CASE("verify: a damaged workbook exits 2 with one line naming the first problem", "[verify]") {
+    QTemporaryDir dir;
+    const QString path = dir.filePath(QStringLiteral("lab.mwb"));
+    writeWorkbook(path);
+    damage(path);
+    const CliResult run = runMeterwright({QStringLiteral("verify"), path});
+    const QString err = run.errText();
+    INFO(err.toStdString());
+    CHECK(run.exitCode == 2);
+    CHECK(err.count(QLatin1Char('\n')) == 1);
+    CHECK(err.contains(QStringLiteral("is damaged: quick_check reports")));
+    CHECK(err.contains(QStringLiteral("page")));
+    CHECK(err.contains(QRegularExpression(QStringLiteral("\\(and \\d+ more\\)"))));
+    CHECK_FALSE(err.contains(QStringLiteral("***")));
 }

@@ -45,7 +45,12 @@ TEST_CASE("every write is audited with its user and values", "[audit]") {
     const QJsonObject after = QJsonDocument::fromJson(update.newValues.toUtf8()).object();
     CHECK(before.value(QStringLiteral("indicated")).toDouble() == session.readings[4].indicated);
     CHECK(after.value(QStringLiteral("indicated")).toDouble() == 6.5);
-    CHECK(audit.entries(QStringLiteral("readings"), update.row_id).size() == 2);
+    // A reading has no id of its own: its entries are filed under its session.
+    CHECK(update.row_id == session.id);
+    CHECK(audit.entries(QStringLiteral("readings"), session.id).size() ==
+          session.readings.size() + 1);
+    CHECK(before.value(QStringLiteral("point_index")).toInt() == changed.point_index);
+    CHECK(before.value(QStringLiteral("direction")).toString() == QStringLiteral("up"));
 
     workbook->setActor(seed.reviewer.id);
     sessions.submit(session.id, mwtest::at(2025, 3, 5));

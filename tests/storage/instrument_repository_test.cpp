@@ -7,6 +7,8 @@
 
 #include <catch2/catch.hpp>
 
+#include <cmath>
+
 using mw::Instrument;
 using mw::storage::InstrumentRepository;
 using mw::storage::WorkbookError;
@@ -138,4 +140,27 @@ TEST_CASE("the due list: never calibrated first, then by due date, retired left 
     CHECK(due[1].due_date == mwtest::date(2025, 4, 20)); // 90 days later
     CHECK(due[2].asset_tag == "VM-001");
     CHECK(due[2].due_date == mwtest::date(2026, 1, 10)); // 365 days later
+}
+
+TEST_CASE("an accuracy class outside the IEC 60051-2 series is refused before any SQL",
+          "[instruments]") {
+    mwtest::TempWorkbook temp;
+    auto workbook = temp.open();
+    InstrumentRepository instruments(*workbook);
+    Instrument odd = mwtest::demoInstrument("VM-ODD");
+    odd.accuracy_class = 4.0; // not a class index of IEC 60051-2 (0.05 ... 5; from memory)
+    try {
+        instruments.add(odd);
+        FAIL("an accuracy class of 4 was stored");
+    } catch (const WorkbookError& error) {
+        CHECK(error.kind() == WorkbookError::Kind::BadInput);
+        CHECK(error.message().contains(QStringLiteral("instrument \"VM-ODD\"")));
+        CHECK(error.message().contains(QStringLiteral("accuracy class 4 is not a class index")));
+    }
+    CHECK(instruments.count() == 0);
+    // A class index computed with a rounding error is stored as the exact series member.
+    Instrument fine = mwtest::demoInstrument("VM-FINE");
+    fine.accuracy_class = std::nextafter(1.5, 2.0);
+    instruments.add(fine);
+    CHECK(instruments.find(fine.id)->accuracy_class == 1.5);
 }

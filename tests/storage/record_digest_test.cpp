@@ -37,26 +37,62 @@ TEST_CASE("the canonical record is independent of part order and sensitive to ev
     mwtest::Seed seed;
     seed.instrument = mwtest::demoInstrument();
     seed.instrument.ranges[0].id = 7;
+    seed.instrument.ranges[1].id = 8;
     mw::CalibrationSession s = mwtest::draft(seed);
     s.id = 12;
-    const QByteArray text = canonicalRecord(s);
+    const mw::storage::RecordContext context{
+        seed.instrument, mw::User{3, "tess", "Tess Bench", mw::Role::Technician, true},
+        mw::User{4, "rory", "Rory Review", mw::Role::Reviewer, true}};
+    const QByteArray text = canonicalRecord(s, context);
     CHECK(text.startsWith("format=meterwright-record 1\nsession=12\n"));
     CHECK(text.contains("reading=7|0|up|as-found|1|V|2|2.05\n"));
+    CHECK(text.contains("technician_signature=tess|Tess Bench\n"));
+    CHECK(text.contains("reviewer_signature=rory|Rory Review\n"));
+    CHECK(text.contains("instrument_spec=VM-001|S/N 4711|multi-range|5e-05|1200|zero-at-end|50|"
+                        "1.5\n"));
+    // Only the range used (the volt range) is written, without its nominal resistor.
+    CHECK(text.contains("range_spec=7|10 V|V|0|10|-\n"));
+    CHECK_FALSE(text.contains("range_spec=8|"));
 
     mw::CalibrationSession reordered = s;
     std::reverse(reordered.readings.begin(), reordered.readings.end());
-    CHECK(canonicalRecord(reordered) == text);
+    CHECK(canonicalRecord(reordered, context) == text);
 
     mw::CalibrationSession nudged = s;
     nudged.readings[3].indicated = std::nextafter(nudged.readings[3].indicated, 100.0);
-    CHECK(canonicalRecord(nudged) != text);
+    CHECK(canonicalRecord(nudged, context) != text);
     mw::CalibrationSession noted = s;
     noted.adjustments[0].text += ".";
-    CHECK(canonicalRecord(noted) != text);
+    CHECK(canonicalRecord(noted, context) != text);
     // A field separator inside a text cannot forge another field.
     mw::CalibrationSession tricky = s;
     tricky.method = "a\nreading=1|2";
-    CHECK_FALSE(canonicalRecord(tricky).contains("\nreading=1|2\n"));
+    CHECK_FALSE(canonicalRecord(tricky, context).contains("\nreading=1|2\n"));
+
+    // What the conformity decision rests on changes the text; the nominal resistor does not.
+    mw::storage::RecordContext other = context;
+    other.instrument->accuracy_class = 5.0;
+    CHECK(canonicalRecord(s, other) != text);
+    other = context;
+    other.instrument->ranges[0].full_scale = 20.0;
+    CHECK(canonicalRecord(s, other) != text);
+    other = context;
+    other.instrument->ranges[0].fiducial_value = 10.0;
+    CHECK(canonicalRecord(s, other) != text);
+    other = context;
+    other.instrument->scale_divisions = 100;
+    CHECK(canonicalRecord(s, other) != text);
+    other = context;
+    other.reviewer->full_name = "Someone Else";
+    CHECK(canonicalRecord(s, other) != text);
+    other = context;
+    other.instrument->ranges[0].nominal_ohms = 198700.0;
+    other.instrument->ranges[1].full_scale = 2e-3; // a range the record does not use
+    other.instrument->location = "Store";
+    CHECK(canonicalRecord(s, other) == text);
+    other = context;
+    other.instrument.reset();
+    CHECK(canonicalRecord(s, other).contains("instrument_spec=missing\n"));
 }
 
 TEST_CASE("a digest is SHA-256 of the previous digest, a newline and the record", "[digest]") {
@@ -132,15 +168,39 @@ TEST_CASE("an edit behind the app's back names the first record that no longer m
         REQUIRE(mwtest::rawExec(
                     temp.path(),
                     QStringLiteral("UPDATE calibration_sessions SET state = "
-                                   "'approved', submitted_at = started_at, "
+                                   "'approved', submitted_at = finished_at, "
                                    "reviewer_id = (SELECT id FROM users WHERE login = 'rory'), "
-                                   "approved_at = started_at "
+                                   "approved_at = finished_at "
                                    "WHERE state = 'draft'"))
                     .isEmpty());
         mw::storage::Workbook workbook(temp.path());
         const auto report = verifyWorkbook(workbook);
         CHECK(report.recordsChecked == 3);
         CHECK(report.firstMismatch->contains(QStringLiteral("never sealed")));
+    }
+    SECTION("the instrument's accuracy class changed") {
+        REQUIRE(mwtest::rawExec(temp.path(), QStringLiteral("UPDATE instruments SET "
+                                                            "accuracy_class = 5"))
+                    .isEmpty());
+        mw::storage::Workbook workbook(temp.path());
+        const auto report = verifyWorkbook(workbook);
+        CHECK(report.firstMismatchSessionId == ids[0]);
+        CHECK(report.recordsChecked == 0);
+    }
+    SECTION("a range's full scale doubled") {
+        REQUIRE(mwtest::rawExec(temp.path(), QStringLiteral("UPDATE instrument_ranges SET "
+                                                            "full_scale = 2 * full_scale"))
+                    .isEmpty());
+        mw::storage::Workbook workbook(temp.path());
+        CHECK(verifyWorkbook(workbook).firstMismatchSessionId == ids[0]);
+    }
+    SECTION("the reviewer's name rewritten") {
+        REQUIRE(mwtest::rawExec(temp.path(), QStringLiteral("UPDATE users SET full_name = "
+                                                            "'Someone Else' WHERE login = "
+                                                            "'rory'"))
+                    .isEmpty());
+        mw::storage::Workbook workbook(temp.path());
+        CHECK(verifyWorkbook(workbook).firstMismatchSessionId == ids[0]);
     }
     SECTION("the standard's certificate rewritten in the record") {
         REQUIRE(mwtest::rawExec(temp.path(), QStringLiteral("UPDATE session_standards SET "
@@ -151,4 +211,25 @@ TEST_CASE("an edit behind the app's back names the first record that no longer m
         mw::storage::Workbook workbook(temp.path());
         CHECK(verifyWorkbook(workbook).firstMismatchSessionId == ids[0]);
     }
+}
+
+TEST_CASE("legitimate edits after approval keep the chain sound", "[digest]") {
+    mwtest::TempWorkbook temp;
+    auto workbook = temp.open();
+    const mwtest::Seed seed = mwtest::seed(*workbook);
+    approveThree(*workbook, seed);
+    // An adjustment changed the multiplier; the instrument moved and its interval was changed.
+    mw::Instrument moved = *mw::storage::InstrumentRepository(*workbook).find(seed.instrument.id);
+    moved.ranges[0].nominal_ohms = 198700.0;
+    moved.location = "Store room";
+    moved.interval_days = 730;
+    mw::storage::InstrumentRepository(*workbook).update(moved);
+    // The standard was recalibrated: the records keep the copies taken when it was used.
+    mw::ReferenceStandard recalibrated = seed.standard;
+    recalibrated.certificate_number = "CERT-2025-044";
+    recalibrated.due_date = mwtest::date(2026, 6, 30);
+    mw::storage::StandardRepository(*workbook).update(recalibrated);
+    const auto report = verifyWorkbook(*workbook);
+    CHECK(report.sound());
+    CHECK(report.recordsChecked == 3);
 }

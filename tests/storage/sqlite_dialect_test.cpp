@@ -147,13 +147,26 @@ TEST_CASE("the workflow cannot be skipped", "[integrity]") {
 
 TEST_CASE("enumerations, units and foreign keys are constrained", "[integrity]") {
     Records r;
-    CHECK(r.attempt("UPDATE instruments SET kind = 'digital-multimeter'")
+    // An instrument no approved record refers to, so only the CHECKs answer.
+    REQUIRE(r.attempt("INSERT INTO instruments (asset_tag, description, manufacturer, model, "
+                      "serial, kind, movement_amps_fs, movement_ohms, scale_type, "
+                      "scale_divisions, accuracy_class, interval_days, location, owner, status) "
+                      "VALUES ('RAW-1', '', '', '', '', 'dc-voltmeter', 0.001, 100, "
+                      "'zero-at-end', 50, 2.5, 365, '', '', 'in-service')")
+                .isEmpty());
+    REQUIRE(r.attempt("INSERT INTO instrument_ranges (instrument_id, sort_order, label, unit, "
+                      "lower_limit, full_scale) VALUES ((SELECT id FROM instruments WHERE "
+                      "asset_tag = 'RAW-1'), 0, '10 V', 'V', 0, 10)")
+                .isEmpty());
+    CHECK(r.attempt("UPDATE instruments SET kind = 'digital-multimeter' WHERE asset_tag = "
+                    "'RAW-1'")
               .contains(QStringLiteral("CHECK constraint failed")));
     CHECK(r.attempt("UPDATE instruments SET status = 'lost'")
               .contains(QStringLiteral("CHECK constraint failed")));
     CHECK(r.attempt("UPDATE users SET role = 'guest'")
               .contains(QStringLiteral("CHECK constraint failed")));
-    CHECK(r.attempt("UPDATE instrument_ranges SET unit = 'mV'")
+    CHECK(r.attempt("UPDATE instrument_ranges SET unit = 'mV' WHERE label = '10 V' AND "
+                    "instrument_id <> {instrument}")
               .contains(QStringLiteral("CHECK constraint failed")));
     CHECK(r.attempt("UPDATE readings SET direction = 'sideways' WHERE session_id = {draft}")
               .contains(QStringLiteral("CHECK constraint failed")));
@@ -185,4 +198,175 @@ TEST_CASE("the audit log is append-only", "[integrity]") {
     Records r;
     CHECK(r.attempt("UPDATE audit_log SET user_id = NULL").contains(QStringLiteral("append-only")));
     CHECK(r.attempt("DELETE FROM audit_log").contains(QStringLiteral("append-only")));
+}
+
+TEST_CASE("the accuracy class is a class index of IEC 60051-2", "[integrity]") {
+    Records r;
+    const char* insert =
+        "INSERT INTO instruments (asset_tag, description, manufacturer, model, serial, kind, "
+        "movement_amps_fs, movement_ohms, scale_type, scale_divisions, accuracy_class, "
+        "interval_days, location, owner, status) VALUES ('RAW-%1', '', '', '', '', "
+        "'dc-voltmeter', 0.001, 100, 'zero-at-end', 50, %1, 365, '', '', 'in-service')";
+    // IEC 60051-2 class indices (from memory; core/accuracy/accuracy_class.cpp holds the series).
+    for (const char* index :
+         {"0.05", "0.1", "0.2", "0.3", "0.5", "1", "1.5", "2", "2.5", "3", "5"}) {
+        CAPTURE(index);
+        CHECK(r.sql(QString::fromUtf8(insert).arg(QString::fromUtf8(index))).isEmpty());
+    }
+    for (const char* index : {"4", "0.25", "1.0001", "10", "0"}) {
+        CAPTURE(index);
+        CHECK(r.sql(QString::fromUtf8(insert).arg(QString::fromUtf8(index)))
+                  .contains(QStringLiteral("CHECK constraint failed")));
+    }
+}
+
+TEST_CASE("a session's copy of a standard's certificate is the standard's current one",
+          "[integrity]") {
+    Records r;
+    // The seeded standard holds CERT-2024-117, due 2025-06-30.
+    CHECK(r.attempt("UPDATE session_standards SET due_date = '2099-01-01' WHERE session_id = "
+                    "{draft}")
+              .contains(QStringLiteral("session_standards: the certificate number and due date "
+                                       "must be those of the reference standard's current")));
+    CHECK(r.attempt("UPDATE session_standards SET certificate_number = 'CERT-FORGED' WHERE "
+                    "session_id = {draft}")
+              .contains(QStringLiteral("current certificate")));
+    REQUIRE(r.attempt("INSERT INTO reference_standards (asset_tag, description, "
+                      "certificate_number, due_date) VALUES ('STD-02', 'Shunt', 'C-2', "
+                      "'2025-05-01')")
+                .isEmpty());
+    CHECK(r.attempt("INSERT INTO session_standards (session_id, standard_id, certificate_number, "
+                    "due_date, overdue_justification) VALUES ({draft}, (SELECT id FROM "
+                    "reference_standards WHERE asset_tag = 'STD-02'), 'C-2', '2099-01-01', '')")
+              .contains(QStringLiteral("current certificate")));
+    CHECK(r.attempt("INSERT INTO session_standards (session_id, standard_id, certificate_number, "
+                    "due_date, overdue_justification) VALUES ({draft}, (SELECT id FROM "
+                    "reference_standards WHERE asset_tag = 'STD-02'), 'C-2', '2025-05-01', '')")
+              .isEmpty());
+    // The justification stays the way to submit with an overdue standard.
+    CHECK(r.attempt("UPDATE calibration_sessions SET state = 'submitted', submitted_at = "
+                    "'2025-05-10T09:00:00Z' WHERE id = {draft}")
+              .contains(QStringLiteral("past its due date")));
+    REQUIRE(r.attempt("UPDATE session_standards SET overdue_justification = 'Cross-checked "
+                      "against STD-01 the same day' WHERE session_id = {draft}")
+                .isEmpty());
+    CHECK(r.attempt("UPDATE calibration_sessions SET state = 'submitted', submitted_at = "
+                    "'2025-05-10T09:00:00Z' WHERE id = {draft}")
+              .isEmpty());
+}
+
+TEST_CASE("recalibrating a standard: new sessions copy the new certificate, amendments keep the "
+          "old one",
+          "[integrity]") {
+    Records r;
+    mw::storage::Workbook workbook(r.temp.path());
+    mw::storage::StandardRepository standards(workbook);
+    mw::ReferenceStandard recalibrated = r.seed.standard;
+    recalibrated.certificate_number = "CERT-2025-044";
+    recalibrated.due_date = mwtest::date(2026, 6, 30);
+    standards.update(recalibrated);
+    REQUIRE(standards.find(recalibrated.id)->certificate_number == "CERT-2025-044");
+
+    mw::storage::SessionRepository sessions(workbook);
+    mw::CalibrationSession later = mwtest::draft(r.seed, mwtest::at(2025, 9, 1));
+    sessions.create(later); // empty copy: the current certificate is taken
+    CHECK(sessions.find(later.id)->standards.at(0).certificate_number == "CERT-2025-044");
+    sessions.submit(later.id, mwtest::at(2025, 9, 1, 15));
+
+    mw::CalibrationSession stale = mwtest::draft(r.seed, mwtest::at(2025, 9, 2));
+    stale.standards = {{r.seed.standard.id, "CERT-2024-117", mwtest::date(2025, 6, 30), ""}};
+    CHECK_THROWS_WITH(sessions.create(stale),
+                      Catch::Contains("reference standard's current certificate"));
+
+    // The approved record of 2025-03-03 used CERT-2024-117; its amendment, filed after the
+    // recalibration and after the old due date, carries that copy over.
+    const std::int64_t amendment =
+        sessions.amend(r.approvedId, r.seed.technician.id,
+                       QStringLiteral("Transcription error in point 3"), mwtest::at(2025, 9, 3));
+    CHECK(sessions.find(amendment)->standards.at(0).certificate_number == "CERT-2024-117");
+    sessions.submit(amendment, mwtest::at(2025, 9, 3, 10));
+    sessions.approve(amendment, r.seed.reviewer.id, mwtest::at(2025, 9, 3, 12));
+    CHECK(sessions.find(r.approvedId)->state == mw::SessionState::Superseded);
+}
+
+TEST_CASE("a session's times run forward", "[integrity]") {
+    Records r;
+    // The draft started 2025-03-01 09:00 and finished at 11:00.
+    CHECK(r.attempt("UPDATE calibration_sessions SET state = 'submitted', submitted_at = "
+                    "'2025-02-28T09:00:00Z' WHERE id = {draft}")
+              .contains(QStringLiteral("CHECK constraint failed")));
+    CHECK(r.attempt("UPDATE calibration_sessions SET state = 'submitted', submitted_at = "
+                    "'2025-03-01T10:00:00Z' WHERE id = {draft}")
+              .contains(QStringLiteral("CHECK constraint failed")));
+    // The submitted one went in at 2025-03-02 15:00.
+    CHECK(r.attempt("UPDATE calibration_sessions SET state = 'approved', reviewer_id = "
+                    "{reviewer}, approved_at = '2025-03-02T14:00:00Z' WHERE id = {submitted}")
+              .contains(QStringLiteral("CHECK constraint failed")));
+    CHECK(r.attempt("UPDATE calibration_sessions SET state = 'approved', reviewer_id = "
+                    "{reviewer}, approved_at = '2025-03-02T16:00:00Z' WHERE id = {submitted}")
+              .isEmpty());
+    CHECK(r.attempt("UPDATE calibration_sessions SET state = 'submitted', submitted_at = "
+                    "'2025-03-01T11:00:00Z' WHERE id = {draft}")
+              .isEmpty());
+}
+
+TEST_CASE("what an approved record's conformity rests on cannot change under it", "[integrity]") {
+    Records r;
+    const QString kept = QStringLiteral("register a new instrument or amend the record");
+    for (const char* edit :
+         {"UPDATE instruments SET accuracy_class = 5 WHERE id = {instrument}",
+          "UPDATE instruments SET serial = 'S/N 9' WHERE id = {instrument}",
+          "UPDATE instruments SET asset_tag = 'VM-999' WHERE id = {instrument}",
+          "UPDATE instruments SET kind = 'dc-voltmeter' WHERE id = {instrument}",
+          "UPDATE instruments SET movement_amps_fs = 1e-4 WHERE id = {instrument}",
+          "UPDATE instruments SET movement_ohms = 1000 WHERE id = {instrument}",
+          "UPDATE instruments SET scale_type = 'no-zero' WHERE id = {instrument}",
+          "UPDATE instruments SET scale_divisions = 100 WHERE id = {instrument}",
+          "UPDATE instrument_ranges SET full_scale = full_scale * 2 WHERE id = {range}",
+          "UPDATE instrument_ranges SET lower_limit = -10 WHERE id = {range}",
+          "UPDATE instrument_ranges SET label = '20 V' WHERE id = {range}",
+          "UPDATE instrument_ranges SET fiducial_value = 2e-3 WHERE id = {amp_range}"}) {
+        CAPTURE(edit);
+        CHECK(r.attempt(edit).contains(kept));
+    }
+    CHECK(r.attempt("UPDATE users SET full_name = 'Someone Else' WHERE id = {reviewer}")
+              .contains(QStringLiteral("users: this user signed approved calibration records")));
+    CHECK(r.attempt("UPDATE users SET login = 'tess2' WHERE id = {tech}")
+              .contains(QStringLiteral("signed approved")));
+    // What may change after approval: where it is, who owns it, its state and interval, and a
+    // range's nominal resistor after an adjustment.
+    for (const char* edit :
+         {"UPDATE instruments SET location = 'Store', owner = 'Lab', status = 'out-of-service', "
+          "interval_days = 730, description = 'Panel voltmeter' WHERE id = {instrument}",
+          "UPDATE instrument_ranges SET nominal_ohms = 198700 WHERE id = {range}",
+          "UPDATE instruments SET accuracy_class = accuracy_class WHERE id = {instrument}",
+          "UPDATE users SET active = 0 WHERE id = {tech}",
+          "UPDATE users SET full_name = 'Ada Admin-Smith' WHERE login = 'ada'"}) {
+        CAPTURE(edit);
+        CHECK(r.attempt(edit).isEmpty());
+    }
+    // Through the repository the refusal is a WorkbookError naming the rule.
+    mw::storage::Workbook workbook(r.temp.path());
+    mw::Instrument changed = r.seed.instrument;
+    changed.accuracy_class = 2.5;
+    CHECK_THROWS_WITH(mw::storage::InstrumentRepository(workbook).update(changed),
+                      Catch::Contains("register a new instrument"));
+}
+
+TEST_CASE("an instrument without approved records may still be corrected", "[integrity]") {
+    mwtest::TempWorkbook temp;
+    {
+        auto workbook = temp.open();
+        const mwtest::Seed seed = mwtest::seed(*workbook);
+        mw::storage::SessionRepository sessions(*workbook);
+        mw::CalibrationSession submitted = mwtest::draft(seed, mwtest::at(2025, 3, 2));
+        sessions.create(submitted);
+        sessions.submit(submitted.id, mwtest::at(2025, 3, 2, 15));
+    }
+    CHECK(rawExec(temp.path(), QStringLiteral("UPDATE instruments SET accuracy_class = 2.5, "
+                                              "serial = 'S/N 4712'"))
+              .isEmpty());
+    CHECK(rawExec(temp.path(), QStringLiteral("UPDATE instrument_ranges SET full_scale = 20 "
+                                              "WHERE label = '10 V'"))
+              .isEmpty());
 }
