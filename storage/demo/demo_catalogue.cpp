@@ -2,10 +2,17 @@
 // certificate number here is made up for the demo.
 #include "storage/demo/demo_catalogue.h"
 
+#include "core/circuits/ammeter.h"
+#include "core/circuits/dc_voltmeter.h"
+#include "core/circuits/rectifier_design.h"
 #include "core/circuits/waveform.h"
 
+#include <algorithm>
 #include <cmath>
+#include <cstdio>
+#include <iterator>
 #include <optional>
+#include <stdexcept>
 
 namespace mw::demo {
 namespace {
@@ -145,27 +152,30 @@ const std::vector<InstrumentRow> kRows{
 };
 // clang-format on
 
-// Designed resistor of one range (textbook formulas, common practice):
-//   DC voltmeter multiplier R_s = V_fs / I_fs - R_m
-//   shunt R_sh = I_fs * R_m / (I_range - I_fs)
-//   rectifier voltmeter R_s = k * V_rms / I_fs - R_m, k = sine average per rms of the rectifier
-//   (ideal diodes; the bench adjusts for the diode drop).
+// Designed resistor of one range, from the engine's own design functions: the multiplier of a
+// DC voltmeter, the shunt of an ammeter, and the ideal-diode multiplier of a rectifier voltmeter
+// with the exact sine average per rms (the bench trims for the diode drop). A centre-zero range
+// is designed for its larger side.
 std::optional<double> designedOhms(const InstrumentRow& row, const RangeRow& range) {
-    const double span = range.full_scale - range.lower;
-    const double top = range.lower < 0 ? span / 2 : range.full_scale;
+    const double top = std::max(std::abs(range.lower), std::abs(range.full_scale));
+    const Movement movement{row.amps_fs, row.ohms};
     if (range.unit == Unit::Ampere) {
         if (std::abs(top - row.amps_fs) <= 1e-12 * top) {
             return std::nullopt; // the bare movement
         }
-        return row.amps_fs * row.ohms / (top - row.amps_fs);
+        return shunt_ohm(movement, top);
     }
-    double volts_per_amp = top / row.amps_fs;
-    if (range.coupling == Coupling::HalfWave) {
-        volts_per_amp *= sineAveragePerRms(Rectification::HalfWave);
-    } else if (range.coupling == Coupling::Bridge) {
-        volts_per_amp *= sineAveragePerRms(Rectification::FullWave);
+    if (range.coupling == Coupling::Dc) {
+        return multiplier_ohm(movement, top);
     }
-    return volts_per_amp - row.ohms;
+    RectifierCircuit circuit;
+    circuit.movement_amps_fs = row.amps_fs;
+    circuit.movement_ohms = row.ohms;
+    const bool bridge = range.coupling == Coupling::Bridge;
+    circuit.rectifier = bridge ? Rectifier::Bridge : Rectifier::HalfWave;
+    const double averagePerRms =
+        sineAveragePerRms(bridge ? Rectification::FullWave : Rectification::HalfWave);
+    return idealMultiplierOhms(circuit, top, averagePerRms);
 }
 
 Instrument fromRow(const InstrumentRow& row) {
@@ -246,7 +256,6 @@ std::vector<ReferenceStandard> demoStandards(std::chrono::sys_days today) {
     ReferenceStandard& calibrator = standards[kCalibrator];
     calibrator.asset_tag = "CFS-01";
     calibrator.description = "Multifunction calibrator: DC/AC voltage to 1000 V, DC current to 2 A";
-    calibrator.due_date = today + days(213);
     calibrator.specs = {spec("2 V DC", V, 2, 0.004, 0.0008),
                         spec("20 V DC", V, 20, 0.004, 0.0008),
                         spec("200 V DC", V, 200, 0.005, 0.001),
@@ -262,7 +271,6 @@ std::vector<ReferenceStandard> demoStandards(std::chrono::sys_days today) {
     ReferenceStandard& multimeter = standards[kBenchMultimeter];
     multimeter.asset_tag = "CFS-02";
     multimeter.description = "Six-and-a-half-digit bench multimeter (resistance, shunt voltage)";
-    multimeter.due_date = today + days(118);
     multimeter.specs = {
         spec("100 mV DC", V, 0.1, 0.005, 0.0035), spec("100 ohm", Unit::Ohm, 100, 0.01, 0.004),
         spec("10 kohm", Unit::Ohm, 10e3, 0.01, 0.001), spec("1 Mohm", Unit::Ohm, 1e6, 0.01, 0.001),
@@ -271,32 +279,61 @@ std::vector<ReferenceStandard> demoStandards(std::chrono::sys_days today) {
     ReferenceStandard& shunt = standards[kCurrentShunt];
     shunt.asset_tag = "CFS-03";
     shunt.description = "Four-terminal current shunt, 0.01 ohm, 20 A";
-    shunt.due_date = today - days(23); // the overdue one
     shunt.specs = {certified("0.01 ohm at 10 A", Unit::Ohm, 0.01, 2e-6)};
 
     ReferenceStandard& resistors = standards[kResistorSet];
     resistors.asset_tag = "CFS-04";
     resistors.description = "Standard resistor set, 1 ohm to 100 kohm in decades";
-    resistors.due_date = today + days(301);
     resistors.specs = {
         certified("1 ohm", Unit::Ohm, 1, 20e-6),    certified("10 ohm", Unit::Ohm, 10, 100e-6),
         certified("100 ohm", Unit::Ohm, 100, 1e-3), certified("1 kohm", Unit::Ohm, 1e3, 10e-3),
         certified("10 kohm", Unit::Ohm, 10e3, 0.1), certified("100 kohm", Unit::Ohm, 100e3, 1.0)};
 
     for (std::size_t i = 0; i < standards.size(); ++i) {
-        ReferenceStandard& standard = standards[i];
-        const std::chrono::year_month_day dueDay{standard.due_date};
-        // The current certificate was issued a year before its due date.
-        standard.certificate_number = certificatePrefix(static_cast<int>(i)) +
-                                      std::to_string(static_cast<int>(dueDay.year()) - 1);
+        const DemoCertificate current =
+            certificateHistory(static_cast<int>(i), today, today).back();
+        standards[i].certificate_number = current.number;
+        standards[i].due_date = current.due;
     }
     return standards;
 }
 
-std::string certificatePrefix(int standardIndex) {
+std::vector<DemoCertificate> certificateHistory(int standardIndex, std::chrono::sys_days today,
+                                                std::chrono::sys_days from) {
+    // Days from `today` to the due date of the certificate each standard holds now; the shunt's
+    // ran out 23 days ago and it has not been sent away yet.
+    static const int currentDueInDays[] = {213, 118, -23, 301};
     static const char* const prefixes[] = {"EXT-CAL-0412/", "EXT-DMM-0877/", "EXT-SHU-0131/",
                                            "EXT-RES-0540/"};
-    return prefixes[standardIndex];
+    if (standardIndex < 0 || standardIndex >= static_cast<int>(std::size(prefixes))) {
+        throw std::out_of_range("demo: no reference standard number " +
+                                std::to_string(standardIndex));
+    }
+    const auto index = static_cast<std::size_t>(standardIndex);
+    std::vector<DemoCertificate> history;
+    std::chrono::sys_days due = today + days(currentDueInDays[index]);
+    for (int back = 0;; ++back) {
+        DemoCertificate certificate;
+        certificate.issued = due - days(365);
+        certificate.due = due;
+        // The calibrating lab's own numbering: year of issue and a running number.
+        const std::chrono::year_month_day issuedOn{certificate.issued};
+        const auto dayOfYear =
+            (certificate.issued - std::chrono::sys_days{issuedOn.year() / 1 / 1}).count();
+        char running[8];
+        std::snprintf(running, sizeof running, "-%03d",
+                      static_cast<int>((dayOfYear * 37 + standardIndex * 211) % 900 + 100));
+        certificate.number = std::string(prefixes[index]) +
+                             std::to_string(static_cast<int>(issuedOn.year())) + running;
+        history.push_back(certificate);
+        if (certificate.issued <= from) {
+            break;
+        }
+        // The standard went away a few days before its previous certificate ran out.
+        due = certificate.issued + days(3 + (5 * standardIndex + 11 * back) % 10);
+    }
+    std::reverse(history.begin(), history.end());
+    return history;
 }
 
 std::vector<Instrument> demoInstruments() {

@@ -33,11 +33,23 @@ enum DemoStandardIndex : int {
 };
 inline constexpr int kOverdueStandard = kCurrentShunt;
 
-// Due dates are relative to `today`, so that the demo shows a live due list whenever it is made.
+// The standards as they stand on `today`, each with its current certificate. Due dates are
+// relative to `today`, so that the demo shows a live due list whenever it is made.
 std::vector<ReferenceStandard> demoStandards(std::chrono::sys_days today);
 
-// Prefix of every certificate number of standard `index`; the year of issue follows it.
-std::string certificatePrefix(int standardIndex);
+// One certificate of an outside calibration of a standard.
+struct DemoCertificate {
+    std::string number;
+    std::chrono::sys_days issued{}; // the day the standard came back and the register was updated
+    std::chrono::sys_days due{};    // a year after issue
+};
+
+// The certificates standard `standardIndex` has held, oldest first: the first was issued on or
+// before `from`, the last is the one it holds on `today` (demoStandards()). Each year the
+// standard goes away a few days before its certificate runs out and comes back with a new one,
+// except the shunt, whose current certificate has run out.
+std::vector<DemoCertificate> certificateHistory(int standardIndex, std::chrono::sys_days today,
+                                                std::chrono::sys_days from);
 
 // About 25 meters of every kind, with ranges whose multipliers and shunts are designed from the
 // movement (ideal rectifier diodes).

@@ -13,6 +13,7 @@
 #include <algorithm>
 #include <cmath>
 #include <map>
+#include <stdexcept>
 
 namespace mw::demo {
 namespace {
@@ -68,7 +69,7 @@ std::vector<sys_days> visitDays(const Instrument& instrument, const Profile& pro
     const int interval = instrument.interval_days;
     const int lag = profile.latestLagDays >= 0 ? profile.latestLagDays
                                                : random.between(15, std::max(20, interval - 5));
-    const sys_days first = today - days(5 * 365 + 1);
+    const sys_days first = today - days(kDemoSpanDays);
     std::vector<sys_days> visits;
     for (sys_days day = today - days(lag); day >= first;
          day -= days(interval + random.between(-10, 20))) {
@@ -84,20 +85,21 @@ bool needsShunt(const Instrument& instrument) {
     });
 }
 
-// The certificate a standard carried on `day`: one a year, each due a year after issue.
-StandardUse useOf(const ReferenceStandard& standard, int index, sys_days day) {
+// The copy a session keeps of the certificate `standard` held on `day` (the register is updated
+// early on the day a standard comes back, before the bench opens).
+StandardUse useOf(const ReferenceStandard& standard, const std::vector<DemoCertificate>& history,
+                  sys_days day) {
+    const auto held = std::find_if(history.rbegin(), history.rend(),
+                                   [day](const DemoCertificate& c) { return c.issued <= day; });
+    if (held == history.rend()) {
+        throw std::logic_error("demo: standard " + standard.asset_tag +
+                               " has no certificate on a day the plan uses it");
+    }
     StandardUse use;
     use.standard_id = standard.id;
-    sys_days due = standard.due_date;
-    if (day < due) {
-        const auto yearsBack = (due - day - days(1)).count() / 365;
-        due -= days(365 * yearsBack);
-    }
-    use.due_date = due;
-    const std::chrono::year_month_day issued{due - days(365)};
-    use.certificate_number =
-        certificatePrefix(index) + std::to_string(static_cast<int>(issued.year()));
-    if (day >= due) {
+    use.certificate_number = held->number;
+    use.due_date = held->due;
+    if (day > held->due) {
         use.overdue_justification =
             "Shunt CFS-03 is past its due date; its recalibration is booked. On the day it was "
             "compared at 1 A with the 1 ohm of the resistor set CFS-04 using the bench "
@@ -108,8 +110,7 @@ StandardUse useOf(const ReferenceStandard& standard, int index, sys_days day) {
 }
 
 std::vector<StandardUse> standardsFor(const Instrument& instrument, const SessionContent& content,
-                                      const std::vector<ReferenceStandard>& standards,
-                                      sys_days day) {
+                                      const DemoStandards& standards, sys_days day) {
     std::vector<int> indices;
     if (needsShunt(instrument)) {
         indices = {kBenchMultimeter, kCurrentShunt};
@@ -124,7 +125,8 @@ std::vector<StandardUse> standardsFor(const Instrument& instrument, const Sessio
     indices.erase(std::unique(indices.begin(), indices.end()), indices.end());
     std::vector<StandardUse> uses;
     for (int index : indices) {
-        uses.push_back(useOf(standards[static_cast<std::size_t>(index)], index, day));
+        const auto i = static_cast<std::size_t>(index);
+        uses.push_back(useOf(standards.register_rows.at(i), standards.certificates.at(i), day));
     }
     return uses;
 }
@@ -202,7 +204,7 @@ Fate fateOf(Part part) {
 // One visit: what was found and the record's place in the review workflow.
 PlannedSession visit(const Instrument& instrument, std::size_t index, MeterSimulation& meter,
                      sys_days day, bool first, bool last, const Profile& profile,
-                     const std::vector<ReferenceStandard>& standards, DemoRandom& random) {
+                     const DemoStandards& standards, DemoRandom& random) {
     const Timestamp start = day + hours(8) + minutes(30 + 5 * random.between(0, 60));
     SessionContent content;
     if (last && profile.part == Part::Damaged) {
@@ -245,9 +247,13 @@ PlannedSession visit(const Instrument& instrument, std::size_t index, MeterSimul
 
 } // namespace
 
+sys_days firstDemoDay(sys_days today) {
+    return today - days(kDemoSpanDays + 2); // a first visit on a Sunday moves back to Friday
+}
+
 std::vector<PlannedSession> planSessions(const std::vector<Instrument>& instruments,
-                                         const std::vector<ReferenceStandard>& standards,
-                                         sys_days today, std::uint64_t seed) {
+                                         const DemoStandards& standards, sys_days today,
+                                         std::uint64_t seed) {
     std::vector<PlannedSession> planned;
     for (std::size_t i = 0; i < instruments.size(); ++i) {
         const Instrument& instrument = instruments[i];

@@ -5,6 +5,7 @@
 #include "core/model/calibration.h"
 #include "core/model/instrument.h"
 #include "core/model/reference_standard.h"
+#include "storage/demo/demo_catalogue.h"
 
 #include <chrono>
 #include <cstdint>
@@ -37,10 +38,23 @@ struct PlannedSession {
     std::optional<PlannedAmendment> amendment;
 };
 
+// Five years of visits: the earliest falls no more than this many days before `today`...
+inline constexpr int kDemoSpanDays = 5 * 365 + 1;
+// ...and never before this day (a weekend visit moves back to the Friday).
+std::chrono::sys_days firstDemoDay(std::chrono::sys_days today);
+
+// The reference standards as registered (with the ids the workbook gave them) and, parallel to
+// them, every certificate each held since firstDemoDay() (demo_catalogue.h).
+struct DemoStandards {
+    std::vector<ReferenceStandard> register_rows;
+    std::vector<std::vector<DemoCertificate>> certificates;
+};
+
 // Plans and simulates every session, oldest first. `instruments` and `standards` must carry the
-// ids the workbook gave them.
+// ids the workbook gave them. Each session keeps a copy of the certificate its standards held on
+// its day.
 std::vector<PlannedSession> planSessions(const std::vector<Instrument>& instruments,
-                                         const std::vector<ReferenceStandard>& standards,
+                                         const DemoStandards& standards,
                                          std::chrono::sys_days today, std::uint64_t seed);
 
 } // namespace mw::demo

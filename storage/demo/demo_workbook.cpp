@@ -1,6 +1,6 @@
 // Writes the demo through the repositories, so the demo obeys the same integrity rules and digest
 // chain as any lab's workbook: the technician records and submits, a different person (the
-// reviewer) approves, and the audit log names who did what.
+// reviewer) approves, the administrator keeps the register, and the audit log names who did what.
 #include "storage/demo/demo_workbook.h"
 
 #include "storage/demo/demo_catalogue.h"
@@ -23,6 +23,9 @@
 namespace mw::demo {
 namespace {
 
+using std::chrono::days;
+using std::chrono::hours;
+using std::chrono::minutes;
 using storage::SessionRepository;
 using storage::Transaction;
 using storage::Workbook;
@@ -48,88 +51,202 @@ People addUsers(Workbook& workbook) {
     return People{demo[0].user.id, demo[1].user.id, admin.user.id};
 }
 
-void addRegister(Workbook& workbook, std::vector<ReferenceStandard>& standards,
+// The register as it stood five years ago: each standard with the certificate it held then,
+// every meter in service (the withdrawn and retired ones leave service later). `instruments`
+// keep the status they end with and receive their ids.
+void addRegister(Workbook& workbook, DemoStandards& standards,
                  std::vector<Instrument>& instruments) {
     Transaction transaction(workbook);
     storage::LabRepository(workbook).save(demoLab());
     storage::StandardRepository standardRepository(workbook);
-    for (ReferenceStandard& standard : standards) {
+    for (std::size_t i = 0; i < standards.register_rows.size(); ++i) {
+        ReferenceStandard& standard = standards.register_rows[i];
+        const DemoCertificate& first = standards.certificates[i].front();
+        standard.certificate_number = first.number;
+        standard.due_date = first.due;
         standardRepository.add(standard);
     }
     storage::InstrumentRepository instrumentRepository(workbook);
     for (Instrument& instrument : instruments) {
-        instrumentRepository.add(instrument);
+        Instrument inService = instrument;
+        inService.status = InstrumentStatus::InService;
+        instrumentRepository.add(inService);
+        instrument.id = inService.id;
+        instrument.ranges = inService.ranges; // with their ids
     }
     transaction.commit();
 }
 
-// The technician records and submits; the reviewer approves or returns.
-std::int64_t record(Workbook& workbook, PlannedSession& planned, const People& people) {
-    SessionRepository sessions(workbook);
-    workbook.setActor(people.technician);
-    planned.session.technician_id = people.technician;
-    {
-        Transaction transaction(workbook);
-        sessions.create(planned.session);
-        if (planned.fate != Fate::Draft) {
-            sessions.submit(planned.session.id, planned.submitted_at);
-        }
-        transaction.commit();
-    }
-    workbook.setActor(people.reviewer);
-    if (planned.fate == Fate::Approved) {
-        sessions.approve(planned.session.id, people.reviewer, planned.decided_at);
-    } else if (planned.fate == Fate::Returned) {
-        sessions.returnToTechnician(planned.session.id, people.reviewer,
-                                    QString::fromStdString(planned.return_comment),
-                                    planned.decided_at);
-    }
-    return planned.session.id;
-}
-
-void amend(Workbook& workbook, std::int64_t approvedId, const PlannedAmendment& amendment,
-           const People& people) {
-    SessionRepository sessions(workbook);
-    workbook.setActor(people.technician);
-    std::int64_t revisionId = 0;
-    {
-        Transaction transaction(workbook);
-        revisionId = sessions.amend(approvedId, people.technician,
-                                    QString::fromStdString(amendment.reason), amendment.started_at);
-        sessions.saveReading(revisionId, amendment.corrected);
-        sessions.submit(revisionId, amendment.submitted_at);
-        transaction.commit();
-    }
-    workbook.setActor(people.reviewer);
-    sessions.approve(revisionId, people.reviewer, amendment.approved_at);
-}
-
-struct Step {
-    Timestamp at{};
-    std::size_t planned = 0;
-    bool amendment = false;
+// What happened, in the order it happened. Approvals in time order keep the digest chain running
+// forward; a session's copy of a certificate is written when its work is recorded, and must be
+// the standard's certificate of that moment, so each recalibration lands between the sessions
+// before and after it.
+enum class Action {
+    Recalibrate,      // a standard back from its calibration: new certificate and due date
+    Record,           // the technician records the work and, unless a draft, submits it
+    Decide,           // the reviewer approves or returns it
+    Amend,            // a correction of an approved record, submitted
+    ApproveAmendment, // ...and approved
+    LeaveService,     // a meter withdrawn or retired
 };
 
-// Approvals in the order they happened, so the digest chain runs forward in time; the records
-// still open (submitted, returned, draft) come last.
-std::vector<Step> stepsInOrder(const std::vector<PlannedSession>& planned) {
-    std::vector<Step> approvals;
-    std::vector<Step> open;
-    for (std::size_t i = 0; i < planned.size(); ++i) {
-        if (planned[i].fate != Fate::Approved) {
-            open.push_back({planned[i].session.started_at, i, false});
+struct Event {
+    Timestamp at{};
+    Action action = Action::Record;
+    std::size_t subject = 0;     // standard, planned session or instrument, by action
+    std::size_t certificate = 0; // of a recalibration
+};
+
+// Withdrawn the day its failure was approved; retired a fortnight after its last visit.
+void addLeavingService(const std::vector<Instrument>& instruments,
+                       const std::vector<Timestamp>& lastDecided, std::vector<Event>& events) {
+    for (std::size_t i = 0; i < instruments.size(); ++i) {
+        const InstrumentStatus status = instruments[i].status;
+        if (status == InstrumentStatus::InService) {
             continue;
         }
-        approvals.push_back({planned[i].decided_at, i, false});
-        if (planned[i].amendment) {
-            approvals.push_back({planned[i].amendment->approved_at, i, true});
+        const days after = status == InstrumentStatus::Retired ? days(14) : days(0);
+        events.push_back({lastDecided[i] + after + minutes(30), Action::LeaveService, i, 0});
+    }
+}
+
+std::vector<Event> eventsOf(const DemoStandards& standards,
+                            const std::vector<PlannedSession>& planned,
+                            const std::vector<Instrument>& instruments) {
+    std::vector<Event> events;
+    for (std::size_t s = 0; s < standards.certificates.size(); ++s) {
+        for (std::size_t c = 1; c < standards.certificates[s].size(); ++c) {
+            // Entered in the register before the bench opens (sessions start at 08:30).
+            const Timestamp enteredAt = standards.certificates[s][c].issued + hours(7);
+            events.push_back({enteredAt, Action::Recalibrate, s, c});
         }
     }
-    std::stable_sort(approvals.begin(), approvals.end(),
-                     [](const Step& a, const Step& b) { return a.at < b.at; });
-    approvals.insert(approvals.end(), open.begin(), open.end());
-    return approvals;
+    std::vector<Timestamp> lastDecided(instruments.size(), Timestamp{});
+    for (std::size_t p = 0; p < planned.size(); ++p) {
+        const PlannedSession& session = planned[p];
+        events.push_back({session.session.started_at, Action::Record, p, 0});
+        if (session.fate == Fate::Approved || session.fate == Fate::Returned) {
+            events.push_back({session.decided_at, Action::Decide, p, 0});
+            Timestamp& last = lastDecided[session.instrument];
+            last = std::max(last, session.decided_at);
+        }
+        if (session.amendment) {
+            events.push_back({session.amendment->started_at, Action::Amend, p, 0});
+            events.push_back({session.amendment->approved_at, Action::ApproveAmendment, p, 0});
+        }
+    }
+    addLeavingService(instruments, lastDecided, events);
+    std::stable_sort(events.begin(), events.end(),
+                     [](const Event& a, const Event& b) { return a.at < b.at; });
+    return events;
 }
+
+// Replays the events through the repositories, each by the person who would have done it.
+class Replay {
+public:
+    Replay(Workbook& workbook, const People& people, DemoStandards& standards,
+           const std::vector<Instrument>& instruments, std::vector<PlannedSession>& planned)
+        : workbook_(workbook)
+        , sessions_(workbook)
+        , people_(people)
+        , standards_(standards)
+        , instruments_(instruments)
+        , planned_(planned)
+        , ids_(planned.size(), 0)
+        , revisionIds_(planned.size(), 0) {}
+
+    void run(const Event& event) {
+        switch (event.action) {
+        case Action::Recalibrate:
+            recalibrate(event.subject, event.certificate);
+            break;
+        case Action::Record:
+            record(event.subject);
+            break;
+        case Action::Decide:
+            decide(event.subject);
+            break;
+        case Action::Amend:
+            amend(event.subject);
+            break;
+        case Action::ApproveAmendment:
+            workbook_.setActor(people_.reviewer);
+            sessions_.approve(revisionIds_[event.subject], people_.reviewer,
+                              planned_[event.subject].amendment->approved_at);
+            break;
+        case Action::LeaveService:
+            leaveService(event.subject);
+            break;
+        }
+    }
+
+private:
+    void recalibrate(std::size_t standardIndex, std::size_t certificateIndex) {
+        ReferenceStandard& standard = standards_.register_rows[standardIndex];
+        const DemoCertificate& certificate =
+            standards_.certificates[standardIndex][certificateIndex];
+        standard.certificate_number = certificate.number;
+        standard.due_date = certificate.due;
+        workbook_.setActor(people_.administrator);
+        storage::StandardRepository(workbook_).update(standard);
+    }
+
+    void record(std::size_t index) {
+        PlannedSession& planned = planned_[index];
+        workbook_.setActor(people_.technician);
+        planned.session.technician_id = people_.technician;
+        Transaction transaction(workbook_);
+        sessions_.create(planned.session);
+        if (planned.fate != Fate::Draft) {
+            sessions_.submit(planned.session.id, planned.submitted_at);
+        }
+        transaction.commit();
+        ids_[index] = planned.session.id;
+    }
+
+    void decide(std::size_t index) {
+        const PlannedSession& planned = planned_[index];
+        workbook_.setActor(people_.reviewer);
+        if (planned.fate == Fate::Approved) {
+            sessions_.approve(ids_[index], people_.reviewer, planned.decided_at);
+        } else {
+            sessions_.returnToTechnician(ids_[index], people_.reviewer,
+                                         QString::fromStdString(planned.return_comment),
+                                         planned.decided_at);
+        }
+    }
+
+    void amend(std::size_t index) {
+        const PlannedAmendment& amendment = *planned_[index].amendment;
+        workbook_.setActor(people_.technician);
+        Transaction transaction(workbook_);
+        const std::int64_t revisionId =
+            sessions_.amend(ids_[index], people_.technician,
+                            QString::fromStdString(amendment.reason), amendment.started_at);
+        sessions_.saveReading(revisionId, amendment.corrected);
+        sessions_.submit(revisionId, amendment.submitted_at);
+        transaction.commit();
+        revisionIds_[index] = revisionId;
+    }
+
+    // Only the status changes; the meter's approved records keep what they rest on.
+    void leaveService(std::size_t instrumentIndex) {
+        storage::InstrumentRepository instruments(workbook_);
+        Instrument stored = instruments.find(instruments_[instrumentIndex].id).value();
+        stored.status = instruments_[instrumentIndex].status;
+        workbook_.setActor(people_.administrator);
+        instruments.update(stored);
+    }
+
+    Workbook& workbook_;
+    SessionRepository sessions_;
+    const People& people_;
+    DemoStandards& standards_;
+    const std::vector<Instrument>& instruments_;
+    std::vector<PlannedSession>& planned_;
+    std::vector<std::int64_t> ids_;         // per planned session, once recorded
+    std::vector<std::int64_t> revisionIds_; // its amendment, if any
+};
 
 DemoSummary summarise(Workbook& workbook, const std::vector<Instrument>& instruments,
                       const std::vector<ReferenceStandard>& standards,
@@ -167,21 +284,22 @@ DemoSummary fill(const QString& path, std::chrono::sys_days today, std::uint64_t
     options.createIfMissing = true;
     Workbook workbook(path, options);
     const People people = addUsers(workbook);
-    std::vector<ReferenceStandard> standards = demoStandards(today);
+    DemoStandards standards;
+    standards.register_rows = demoStandards(today);
+    for (std::size_t i = 0; i < standards.register_rows.size(); ++i) {
+        standards.certificates.push_back(
+            certificateHistory(static_cast<int>(i), today, firstDemoDay(today)));
+    }
     std::vector<Instrument> instruments = demoInstruments();
     addRegister(workbook, standards, instruments);
 
     std::vector<PlannedSession> planned = planSessions(instruments, standards, today, seed);
-    std::vector<std::int64_t> ids(planned.size(), 0);
-    for (const Step& step : stepsInOrder(planned)) {
-        if (step.amendment) {
-            amend(workbook, ids[step.planned], *planned[step.planned].amendment, people);
-        } else {
-            ids[step.planned] = record(workbook, planned[step.planned], people);
-        }
+    Replay replay(workbook, people, standards, instruments, planned);
+    for (const Event& event : eventsOf(standards, planned, instruments)) {
+        replay.run(event);
     }
     workbook.setActor(std::nullopt);
-    return summarise(workbook, instruments, standards, planned, today);
+    return summarise(workbook, instruments, standards.register_rows, planned, today);
 }
 
 void removeWithCompanions(const QString& path) {

@@ -3,6 +3,7 @@
 #include "storage/instrument_repository.h"
 #include "storage/record_digest.h"
 #include "storage/workbook.h"
+#include "support/cli_process.h"
 
 #include <catch2/catch.hpp>
 
@@ -10,25 +11,12 @@
 #include <QFile>
 #include <QJsonDocument>
 #include <QJsonObject>
-#include <QProcess>
 #include <QTemporaryDir>
 
+using mwtest::CliResult;
+using mwtest::runMeterwright;
+
 namespace {
-
-struct Run {
-    int exitCode = -1;
-    QString out;
-    QString err;
-};
-
-Run meterwright(const QStringList& arguments) {
-    QProcess process;
-    process.start(QStringLiteral(MW_BINARY_DIR "/app/meterwright"), arguments);
-    REQUIRE(process.waitForFinished(120'000));
-    REQUIRE(process.exitStatus() == QProcess::NormalExit);
-    return Run{process.exitCode(), QString::fromUtf8(process.readAllStandardOutput()),
-               QString::fromUtf8(process.readAllStandardError())};
-}
 
 QByteArray fileHash(const QString& path) {
     QFile file(path);
@@ -41,12 +29,12 @@ QByteArray fileHash(const QString& path) {
 TEST_CASE("demo writes a sound workbook to a new file and reports what it holds") {
     QTemporaryDir dir;
     const QString path = dir.filePath(QStringLiteral("demo.mwb"));
-    const Run run = meterwright({QStringLiteral("demo"), path, QStringLiteral("--as-of"),
-                                 QStringLiteral("2026-03-16"), QStringLiteral("--json")});
+    const CliResult run = runMeterwright({QStringLiteral("demo"), path, QStringLiteral("--as-of"),
+                                          QStringLiteral("2026-03-16"), QStringLiteral("--json")});
     INFO(run.err.toStdString());
     REQUIRE(run.exitCode == 0);
     CHECK(run.err.isEmpty());
-    const QJsonObject summary = QJsonDocument::fromJson(run.out.toUtf8()).object();
+    const QJsonObject summary = QJsonDocument::fromJson(run.out).object();
     CHECK(summary.value(QStringLiteral("instruments")).toInt() == 25);
     CHECK(summary.value(QStringLiteral("overdue_standards")).toInt() == 1);
     CHECK(summary.value(QStringLiteral("users")).toInt() == 3);
@@ -60,29 +48,26 @@ TEST_CASE("demo writes a sound workbook to a new file and reports what it holds"
 TEST_CASE("demo refuses to write over an existing file and leaves it untouched") {
     QTemporaryDir dir;
     const QString path = dir.filePath(QStringLiteral("demo.mwb"));
-    REQUIRE(meterwright({QStringLiteral("demo"), path}).exitCode == 0);
+    REQUIRE(runMeterwright({QStringLiteral("demo"), path}).exitCode == 0);
     const QByteArray before = fileHash(path);
 
-    const Run again = meterwright({QStringLiteral("demo"), path});
-    CHECK(again.exitCode == 2);
-    CHECK(again.out.isEmpty());
-    CHECK(again.err.count(QLatin1Char('\n')) == 1);
-    CHECK(again.err.contains(QStringLiteral("already exists")));
-    CHECK(again.err.contains(path));
+    const CliResult again =
+        mwtest::requireUsageError({QStringLiteral("demo"), path}, "already exists");
+    CHECK(again.errText().contains(path));
     CHECK(fileHash(path) == before);
 }
 
 TEST_CASE("demo names what is wrong with its arguments") {
     QTemporaryDir dir;
     const QString path = dir.filePath(QStringLiteral("demo.mwb"));
-    const Run badDate = meterwright(
+    const CliResult badDate = runMeterwright(
         {QStringLiteral("demo"), path, QStringLiteral("--as-of"), QStringLiteral("16/03/2026")});
     CHECK(badDate.exitCode == 2);
-    CHECK(badDate.err.contains(QStringLiteral("--as-of")));
-    CHECK(badDate.err.count(QLatin1Char('\n')) == 1);
+    CHECK(badDate.errText().contains(QStringLiteral("--as-of")));
+    CHECK(badDate.errText().count(QLatin1Char('\n')) == 1);
     CHECK_FALSE(QFile::exists(path));
 
-    const Run noFile = meterwright({QStringLiteral("demo")});
+    const CliResult noFile = runMeterwright({QStringLiteral("demo")});
     CHECK(noFile.exitCode == 2);
-    CHECK(noFile.err.contains(QStringLiteral("WORKBOOK")));
+    CHECK(noFile.errText().contains(QStringLiteral("WORKBOOK")));
 }

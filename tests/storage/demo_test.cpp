@@ -3,6 +3,7 @@
 #include "storage/demo/demo_workbook.h"
 
 #include "core/accuracy/accuracy_class.h"
+#include "storage/audit_repository.h"
 #include "storage/instrument_repository.h"
 #include "storage/lab_repository.h"
 #include "storage/record_digest.h"
@@ -22,6 +23,7 @@
 #include <cmath>
 #include <map>
 #include <numbers>
+#include <set>
 
 using namespace std::chrono;
 using mw::CalibrationSession;
@@ -118,6 +120,8 @@ TEST_CASE("the demo register holds about 25 meters of every kind") {
         CHECK_FALSE(instrument.ranges.empty());
         CHECK(instrument.movement.amps_fs >= 50e-6);
         CHECK(instrument.movement.amps_fs <= 1e-3);
+        // Class indices of IEC 60051-1 (common practice): the workbook accepts no other.
+        CHECK(mw::isStandardClassIndex(instrument.accuracy_class));
     }
     CHECK(perKind[mw::InstrumentKind::DcVoltmeter] == 6);
     CHECK(perKind[mw::InstrumentKind::DcAmmeter] == 5);
@@ -154,6 +158,21 @@ TEST_CASE("demo multipliers and shunts follow the textbook design formulas") {
     const Instrument& multiRange = byTag(instruments, "CFM-502");
     REQUIRE(multiRange.ranges.size() == 4);
     CHECK(*multiRange.ranges[0].nominal_ohms == mwtest::relative(1e-4 * 1000 / 9e-4, 1e-12));
+    // Each range of a multi-range voltmeter has its own multiplier, V / I_fs - R_m (common
+    // practice): 3 V and 300 V on a 50 uA, 2 kohm movement.
+    const Instrument& voltmeter = byTag(instruments, "CFM-501");
+    REQUIRE(voltmeter.ranges.size() == 5);
+    CHECK(*voltmeter.ranges[0].nominal_ohms == mwtest::relative(58'000.0, 1e-12));
+    CHECK(*voltmeter.ranges[4].nominal_ohms == mwtest::relative(5'998'000.0, 1e-12));
+    // The service multimeter's AC range is half-wave: (sqrt 2 / pi) 250 V / 50 uA - 3 kohm.
+    const Instrument& multimeter = byTag(instruments, "CFM-503");
+    REQUIRE(multimeter.ranges.size() == 5);
+    CHECK(*multimeter.ranges[4].nominal_ohms ==
+          mwtest::relative(std::numbers::sqrt2 / std::numbers::pi * 250.0 / 50e-6 - 3000.0, 1e-12));
+    // A centre-zero ammeter's shunt carries the current of either side, 10 A here (common
+    // practice): 500 uA x 200 ohm / (10 A - 500 uA).
+    CHECK(*byTag(instruments, "CFM-204").ranges.at(0).nominal_ohms ==
+          mwtest::relative(500e-6 * 200.0 / (10.0 - 500e-6), 1e-12));
 }
 
 TEST_CASE("the demo lab has one user per role and the stated demo passwords") {
@@ -202,6 +221,13 @@ TEST_CASE("the demo records span five years and show every workflow state") {
         latest = std::max(latest, session.started_at);
         if (session.reviewer_id) {
             CHECK(*session.reviewer_id != session.technician_id);
+        }
+        if (session.submitted_at) {
+            CHECK(*session.submitted_at >= session.started_at);
+        }
+        if (session.approved_at) {
+            REQUIRE(session.submitted_at);
+            CHECK(*session.approved_at >= *session.submitted_at);
         }
     }
     CHECK(perState[SessionState::Approved] > 80);
@@ -292,6 +318,100 @@ TEST_CASE("a record waiting for review leans on the overdue shunt with a justifi
         }
     }
     CHECK(justified == 1);
+}
+
+TEST_CASE("each record keeps the certificate its standards held on the day of the work") {
+    Workbook workbook = openDemo();
+    const auto standards = mw::storage::StandardRepository(workbook).all();
+    // Per standard, the day of each use and the certificate copied.
+    std::map<std::int64_t, std::vector<std::pair<sys_days, mw::StandardUse>>> uses;
+    for (const CalibrationSession& session : allSessions(workbook)) {
+        const sys_days day = floor<days>(session.started_at);
+        for (const mw::StandardUse& use : session.standards) {
+            // A certificate is issued at most a year before it falls due (the demo recalibrates
+            // its standards yearly, common practice), and covers the day unless justified.
+            CHECK(use.due_date - days(365) <= day);
+            if (use.due_date < day) {
+                CHECK_FALSE(use.overdue_justification.empty());
+            }
+            uses[use.standard_id].emplace_back(day, use);
+        }
+    }
+    mw::storage::AuditRepository audit(workbook);
+    const auto morgan = mw::storage::UserRepository(workbook).findByLogin(QStringLiteral("morgan"));
+    REQUIRE(morgan);
+    int latestOnCurrent = 0;
+    for (const mw::ReferenceStandard& standard : standards) {
+        INFO(standard.asset_tag);
+        auto& used = uses[standard.id];
+        REQUIRE_FALSE(used.empty());
+        std::stable_sort(used.begin(), used.end(),
+                         [](const auto& a, const auto& b) { return a.first < b.first; });
+        // Later work never carries an older certificate; one number, one due date.
+        std::map<std::string, sys_days> dueOf;
+        for (std::size_t i = 0; i < used.size(); ++i) {
+            const mw::StandardUse& use = used[i].second;
+            if (i > 0) {
+                CHECK(use.due_date >= used[i - 1].second.due_date);
+            }
+            const auto [it, added] = dueOf.emplace(use.certificate_number, use.due_date);
+            CHECK(it->second == use.due_date);
+        }
+        // Five years of use span at least four certificates of each standard.
+        CHECK(dueOf.size() >= 4);
+        // Work done since the register's certificate was issued copied that certificate.
+        const auto& [latestDay, latest] = used.back();
+        if (latestDay >= standard.due_date - days(365)) {
+            ++latestOnCurrent;
+            CHECK(latest.certificate_number == standard.certificate_number);
+            CHECK(latest.due_date == standard.due_date);
+        }
+        // Each recalibration was entered in the register by the administrator.
+        int updates = 0;
+        for (const auto& entry :
+             audit.entries(QStringLiteral("reference_standards"), standard.id)) {
+            if (entry.action == QStringLiteral("update")) {
+                ++updates;
+                CHECK(entry.user_id == morgan->id);
+            }
+        }
+        CHECK(updates >= 4);
+    }
+    CHECK(latestOnCurrent >= 2); // the calibrator and the overdue shunt at least
+}
+
+TEST_CASE("the withdrawn and the retired meter left service after their records were approved") {
+    Workbook workbook = openDemo();
+    InstrumentRepository instruments(workbook);
+    mw::storage::AuditRepository audit(workbook);
+    for (const char* tag : {"CFM-105", "CFM-106"}) {
+        INFO(tag);
+        const auto instrument = instruments.findByTag(QString::fromLatin1(tag));
+        REQUIRE(instrument);
+        std::vector<mw::storage::AuditEntry> updates;
+        for (const auto& entry : audit.entries(QStringLiteral("instruments"), instrument->id)) {
+            if (entry.action == QStringLiteral("update")) {
+                updates.push_back(entry);
+            }
+        }
+        REQUIRE(updates.size() == 1);
+        CHECK(updates.front().oldValues.contains(QStringLiteral("\"status\":\"in-service\"")));
+        CHECK_FALSE(updates.front().newValues.contains(QStringLiteral("in-service")));
+        // Written after every change to the meter's records, the approvals included: a status
+        // change is allowed on a meter with approved records.
+        std::int64_t lastRecordEntry = 0;
+        int approved = 0;
+        for (const CalibrationSession& session :
+             SessionRepository(workbook).historyOf(instrument->id)) {
+            approved += session.state == SessionState::Approved ? 1 : 0;
+            for (const auto& entry :
+                 audit.entries(QStringLiteral("calibration_sessions"), session.id)) {
+                lastRecordEntry = std::max(lastRecordEntry, entry.id);
+            }
+        }
+        CHECK(approved > 0);
+        CHECK(updates.front().id > lastRecordEntry);
+    }
 }
 
 TEST_CASE("the demo due list shows an overdue meter and leaves the retired one out") {
