@@ -2,6 +2,7 @@
 #include "storage/instrument_repository.h"
 
 #include "core/accuracy/accuracy_class.h"
+#include "storage/instrument_rows.h"
 #include "storage/sql_support.h"
 #include "storage/transaction.h"
 #include "storage/workbook.h"
@@ -15,50 +16,6 @@ namespace mw::storage {
 namespace {
 
 using Kind = WorkbookError::Kind;
-
-const QString kSelect = QStringLiteral(
-    "SELECT id, asset_tag, description, manufacturer, model, serial, kind, movement_amps_fs, "
-    "movement_ohms, scale_type, scale_divisions, accuracy_class, interval_days, location, owner, "
-    "status FROM instruments ");
-const QString kSelectRanges =
-    QStringLiteral("SELECT id, instrument_id, label, unit, lower_limit, full_scale, nominal_ohms, "
-                   "fiducial_value FROM instrument_ranges ");
-
-Instrument instrumentFrom(const QSqlQuery& q) {
-    Instrument i;
-    i.id = q.value(0).toLongLong();
-    i.asset_tag = sql::toStd(q.value(1));
-    i.description = sql::toStd(q.value(2));
-    i.manufacturer = sql::toStd(q.value(3));
-    i.model = sql::toStd(q.value(4));
-    i.serial = sql::toStd(q.value(5));
-    i.kind = sql::enumFrom<InstrumentKind>(q.value(6), "instruments.kind");
-    i.movement = {q.value(7).toDouble(), q.value(8).toDouble()};
-    i.scale_type = sql::enumFrom<ScaleType>(q.value(9), "instruments.scale_type");
-    i.scale_divisions = q.value(10).toInt();
-    i.accuracy_class = q.value(11).toDouble();
-    i.interval_days = q.value(12).toInt();
-    i.location = sql::toStd(q.value(13));
-    i.owner = sql::toStd(q.value(14));
-    i.status = sql::enumFrom<InstrumentStatus>(q.value(15), "instruments.status");
-    return i;
-}
-
-RangeSpec rangeFrom(const QSqlQuery& q) {
-    RangeSpec r;
-    r.id = q.value(0).toLongLong();
-    r.label = sql::toStd(q.value(2));
-    r.unit = sql::unitFrom(q.value(3));
-    r.lower_limit = q.value(4).toDouble();
-    r.full_scale = q.value(5).toDouble();
-    if (!q.value(6).isNull()) {
-        r.nominal_ohms = q.value(6).toDouble();
-    }
-    if (!q.value(7).isNull()) {
-        r.fiducial_value = q.value(7).toDouble();
-    }
-    return r;
-}
 
 // The class index as the exact member of the IEC 60051-2 series it matches (the table's CHECK
 // compares exactly), or a clear error before any SQL runs.
@@ -167,7 +124,7 @@ void attachRanges(const QSqlDatabase& db, std::vector<Instrument>& instruments,
     for (Instrument& i : instruments) {
         byId[i.id] = &i;
     }
-    QSqlQuery q = sql::prepare(db, kSelectRanges + condition +
+    QSqlQuery q = sql::prepare(db, rows::selectRanges() + condition +
                                        QStringLiteral(" ORDER BY instrument_id, sort_order"));
     if (value.isValid()) {
         q.addBindValue(value);
@@ -175,21 +132,21 @@ void attachRanges(const QSqlDatabase& db, std::vector<Instrument>& instruments,
     sql::exec(q, QStringLiteral("reading instrument ranges"));
     while (q.next()) {
         if (auto found = byId.find(q.value(1).toLongLong()); found != byId.end()) {
-            found->second->ranges.push_back(rangeFrom(q));
+            found->second->ranges.push_back(rows::rangeFrom(q));
         }
     }
 }
 
 std::vector<Instrument> query(const QSqlDatabase& db, const QString& condition,
                               const QVariant& value) {
-    QSqlQuery q = sql::prepare(db, kSelect + condition);
+    QSqlQuery q = sql::prepare(db, rows::selectInstruments() + condition);
     if (value.isValid()) {
         q.addBindValue(value);
     }
     sql::exec(q, QStringLiteral("reading instruments"));
     std::vector<Instrument> found;
     while (q.next()) {
-        found.push_back(instrumentFrom(q));
+        found.push_back(rows::instrumentFrom(q));
     }
     return found;
 }

@@ -1,6 +1,7 @@
 // Reads the instrument specification and the signatories an approved record's digest covers.
 #include "storage/record_context.h"
 
+#include "storage/instrument_rows.h"
 #include "storage/sql_support.h"
 
 #include <QSqlQuery>
@@ -8,60 +9,34 @@
 namespace mw::storage {
 namespace {
 
-// Rows read with the same columns the instrument repository writes; nominal_ohms is read too
-// but never digested (an adjustment may legitimately change it).
+// The same rows the register reads; nominal_ohms comes along but is never digested (an
+// adjustment may legitimately change it).
 void readInstruments(const QSqlDatabase& db, const QString& condition, const QVariant& value,
                      std::map<std::int64_t, Instrument>& into) {
-    QSqlQuery q = sql::prepare(
-        db, QStringLiteral("SELECT id, asset_tag, serial, kind, movement_amps_fs, movement_ohms, "
-                           "scale_type, scale_divisions, accuracy_class FROM instruments ") +
-                condition);
+    QSqlQuery q = sql::prepare(db, rows::selectInstruments() + condition);
     if (value.isValid()) {
         q.addBindValue(value);
     }
     sql::exec(q, QStringLiteral("reading the instruments of approved records"));
     while (q.next()) {
-        Instrument i;
-        i.id = q.value(0).toLongLong();
-        i.asset_tag = sql::toStd(q.value(1));
-        i.serial = sql::toStd(q.value(2));
-        i.kind = sql::enumFrom<InstrumentKind>(q.value(3), "instruments.kind");
-        i.movement = {q.value(4).toDouble(), q.value(5).toDouble()};
-        i.scale_type = sql::enumFrom<ScaleType>(q.value(6), "instruments.scale_type");
-        i.scale_divisions = q.value(7).toInt();
-        i.accuracy_class = q.value(8).toDouble();
+        Instrument i = rows::instrumentFrom(q);
         into.emplace(i.id, std::move(i));
     }
 }
 
 void readRanges(const QSqlDatabase& db, const QString& condition, const QVariant& value,
                 std::map<std::int64_t, Instrument>& instruments) {
-    QSqlQuery q = sql::prepare(
-        db, QStringLiteral("SELECT id, instrument_id, label, unit, lower_limit, full_scale, "
-                           "nominal_ohms, fiducial_value FROM instrument_ranges ") +
-                condition + QStringLiteral(" ORDER BY instrument_id, sort_order"));
+    QSqlQuery q = sql::prepare(db, rows::selectRanges() + condition +
+                                       QStringLiteral(" ORDER BY instrument_id, sort_order"));
     if (value.isValid()) {
         q.addBindValue(value);
     }
     sql::exec(q, QStringLiteral("reading the ranges of approved records"));
     while (q.next()) {
         const auto owner = instruments.find(q.value(1).toLongLong());
-        if (owner == instruments.end()) {
-            continue;
+        if (owner != instruments.end()) {
+            owner->second.ranges.push_back(rows::rangeFrom(q));
         }
-        RangeSpec r;
-        r.id = q.value(0).toLongLong();
-        r.label = sql::toStd(q.value(2));
-        r.unit = sql::unitFrom(q.value(3));
-        r.lower_limit = q.value(4).toDouble();
-        r.full_scale = q.value(5).toDouble();
-        if (!q.value(6).isNull()) {
-            r.nominal_ohms = q.value(6).toDouble();
-        }
-        if (!q.value(7).isNull()) {
-            r.fiducial_value = q.value(7).toDouble();
-        }
-        owner->second.ranges.push_back(std::move(r));
     }
 }
 

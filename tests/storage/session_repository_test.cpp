@@ -133,11 +133,11 @@ TEST_CASE("the review workflow: submit, return, reopen, approve, amend", "[sessi
         WorkbookError);
     const std::int64_t amendment =
         sessions.amend(session.id, seed.technician.id,
-                       QStringLiteral("Transcription error at point 2"), mwtest::at(2025, 4, 1));
+                       QStringLiteral("Value copied wrongly at point 2"), mwtest::at(2025, 4, 1));
     auto revision = sessions.find(amendment);
     CHECK(revision->revision == 2);
     CHECK(revision->supersedes_id == session.id);
-    CHECK(revision->amendment_reason == "Transcription error at point 2");
+    CHECK(revision->amendment_reason == "Value copied wrongly at point 2");
     CHECK(revision->amended_at == mwtest::at(2025, 4, 1));
     CHECK(revision->readings == read->readings);
     CHECK(revision->state == SessionState::Draft);

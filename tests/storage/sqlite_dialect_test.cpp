@@ -282,7 +282,7 @@ TEST_CASE("recalibrating a standard: new sessions copy the new certificate, amen
     // recalibration and after the old due date, carries that copy over.
     const std::int64_t amendment =
         sessions.amend(r.approvedId, r.seed.technician.id,
-                       QStringLiteral("Transcription error in point 3"), mwtest::at(2025, 9, 3));
+                       QStringLiteral("Value copied wrongly at point 3"), mwtest::at(2025, 9, 3));
     CHECK(sessions.find(amendment)->standards.at(0).certificate_number == "CERT-2024-117");
     sessions.submit(amendment, mwtest::at(2025, 9, 3, 10));
     sessions.approve(amendment, r.seed.reviewer.id, mwtest::at(2025, 9, 3, 12));
