@@ -33,7 +33,8 @@ QVariant InstrumentListModel::data(const QModelIndex& index, int role) const {
     if (role == Qt::UserRole) {
         return QVariant::fromValue<qlonglong>(row.instrumentId);
     }
-    if (role != Qt::DisplayRole) {
+    // The whole text as a tooltip, since narrow columns elide it.
+    if (role != Qt::DisplayRole && role != Qt::ToolTipRole) {
         return {};
     }
     switch (index.column()) {

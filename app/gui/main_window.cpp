@@ -6,6 +6,7 @@
 #include "app/gui/instrument_list_model.h"
 #include "app/gui/register_rows.h"
 #include "storage/instrument_repository.h"
+#include "storage/session_repository.h"
 #include "storage/workbook.h"
 #include "storage/workbook_error.h"
 
@@ -33,7 +34,7 @@ MainWindow::MainWindow(QWidget* parent)
     buildMenus();
     buildRegister();
     statusBar()->showMessage(tr("No workbook open"));
-    resize(1100, 700);
+    resize(1180, 720);
 }
 
 MainWindow::~MainWindow() = default;
@@ -68,7 +69,8 @@ void MainWindow::buildRegister() {
     instrumentView_->horizontalHeader()->setSectionResizeMode(InstrumentListModel::Description,
                                                               QHeaderView::Stretch);
     instrumentView_->horizontalHeader()->setSectionResizeMode(InstrumentListModel::Kind,
-                                                              QHeaderView::Stretch);
+                                                              QHeaderView::Interactive);
+    instrumentView_->horizontalHeader()->resizeSection(InstrumentListModel::Kind, 150);
     instrumentView_->verticalHeader()->hide();
     instrumentView_->verticalHeader()->setDefaultSectionSize(fontMetrics().height() + 8);
     instrumentView_->setWordWrap(false);
@@ -78,7 +80,7 @@ void MainWindow::buildRegister() {
     splitter->addWidget(detailPanel_);
     splitter->setStretchFactor(0, 3);
     splitter->setStretchFactor(1, 2);
-    splitter->setSizes({680, 420});
+    splitter->setSizes({800, 380});
 
     emptyStateLabel_ = new QLabel(
         tr("<p><b>No instruments to show.</b></p>"
@@ -140,7 +142,16 @@ void MainWindow::reloadRegister() {
     }
     const storage::InstrumentRepository instruments(*workbook_);
     const auto today = std::chrono::floor<std::chrono::days>(std::chrono::system_clock::now());
-    instrumentModel_->setRows(buildRegisterRows(instruments.all(), instruments.dueList(), today));
+    OpenCalibrations open;
+    const storage::SessionRepository sessions(*workbook_);
+    for (const SessionState state :
+         {SessionState::Draft, SessionState::Returned, SessionState::Submitted}) {
+        for (const CalibrationSession& session : sessions.withState(state)) {
+            open[session.instrument_id] = state;
+        }
+    }
+    instrumentModel_->setRows(
+        buildRegisterRows(instruments.all(), instruments.dueList(), open, today));
     detailPanel_->showInstrument(std::nullopt);
     if (instrumentModel_->rowCount() > 0) {
         instrumentView_->setCurrentIndex(instrumentModel_->index(0, 0));

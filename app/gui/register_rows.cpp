@@ -18,10 +18,26 @@ QString toQString(std::string_view text) {
     return QString::fromUtf8(text.data(), static_cast<qsizetype>(text.size()));
 }
 
+QString openCalibrationNote(SessionState state) {
+    switch (state) {
+    case SessionState::Submitted:
+        return QStringLiteral("record awaiting review");
+    case SessionState::Returned:
+        return QStringLiteral("record returned to technician");
+    case SessionState::Draft:
+        return QStringLiteral("calibration in progress");
+    case SessionState::Approved:
+    case SessionState::Superseded:
+        break;
+    }
+    return {};
+}
+
 } // namespace
 
 std::vector<InstrumentRow> buildRegisterRows(const std::vector<Instrument>& instruments,
                                              const std::vector<storage::DueItem>& dueList,
+                                             const OpenCalibrations& open,
                                              std::chrono::sys_days today) {
     std::map<std::int64_t, const storage::DueItem*> dueById;
     for (const storage::DueItem& item : dueList) {
@@ -47,6 +63,9 @@ std::vector<InstrumentRow> buildRegisterRows(const std::vector<Instrument>& inst
             row.attention = true;
         } else {
             row.due = isoDate(*found->second->due_date);
+        }
+        if (const auto pending = open.find(instrument.id); pending != open.end()) {
+            row.due += QStringLiteral(" · ") + openCalibrationNote(pending->second);
         }
         rows.push_back(std::move(row));
     }

@@ -6,14 +6,21 @@
 #include "storage/instrument_repository.h"
 
 #include <chrono>
+#include <map>
 #include <vector>
 
 namespace mw::gui {
 
+// The state of an instrument's calibration that is still open (draft, submitted or returned),
+// by instrument id; instruments with none are absent.
+using OpenCalibrations = std::map<std::int64_t, SessionState>;
+
 // One row per instrument, in the order given; the due column says "Never calibrated",
-// "Overdue since …" or the due date, so status never rests on colour alone.
+// "Overdue since …" or the due date, and what an open calibration is waiting for, so status
+// never rests on colour alone.
 std::vector<InstrumentRow> buildRegisterRows(const std::vector<Instrument>& instruments,
                                              const std::vector<storage::DueItem>& dueList,
+                                             const OpenCalibrations& open,
                                              std::chrono::sys_days today);
 
 } // namespace mw::gui

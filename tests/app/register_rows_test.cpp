@@ -34,7 +34,7 @@ TEST_CASE("due column says never calibrated, overdue, or the due date") {
     DueItem later;
     later.instrument_id = 3;
     later.due_date = sys_days{2027y / March / 1};
-    const auto rows = mw::gui::buildRegisterRows(instruments, {overdue, later}, today);
+    const auto rows = mw::gui::buildRegisterRows(instruments, {overdue, later}, {}, today);
 
     REQUIRE(rows.size() == 4);
     CHECK(rows[0].due == QStringLiteral("Never calibrated"));
@@ -54,8 +54,29 @@ TEST_CASE("an instrument due today is not overdue") {
     dueToday.instrument_id = 1;
     dueToday.due_date = today;
     const auto rows = mw::gui::buildRegisterRows({instrument(1, "A", InstrumentStatus::InService)},
-                                                 {dueToday}, today);
+                                                 {dueToday}, {}, today);
     REQUIRE(rows.size() == 1);
     CHECK(rows[0].due == QStringLiteral("2026-12-01"));
     CHECK_FALSE(rows[0].attention);
+}
+
+TEST_CASE("an open calibration says what it is waiting for beside the due state") {
+    const sys_days today = sys_days{2026y / December / 1};
+    DueItem overdue;
+    overdue.instrument_id = 1;
+    overdue.due_date = sys_days{2026y / November / 20};
+    DueItem later;
+    later.instrument_id = 2;
+    later.due_date = sys_days{2027y / May / 2};
+    const mw::gui::OpenCalibrations open{{1, mw::SessionState::Submitted},
+                                         {2, mw::SessionState::Draft},
+                                         {3, mw::SessionState::Returned}};
+    const auto rows = mw::gui::buildRegisterRows({instrument(1, "A", InstrumentStatus::InService),
+                                                  instrument(2, "B", InstrumentStatus::InService),
+                                                  instrument(3, "C", InstrumentStatus::InService)},
+                                                 {overdue, later}, open, today);
+    REQUIRE(rows.size() == 3);
+    CHECK(rows[0].due == QStringLiteral("Overdue since 2026-11-20 · record awaiting review"));
+    CHECK(rows[1].due == QStringLiteral("2027-05-02 · calibration in progress"));
+    CHECK(rows[2].due == QStringLiteral("Never calibrated · record returned to technician"));
 }
