@@ -5,12 +5,14 @@
 #include "app/gui/instrument_detail_panel.h"
 #include "app/gui/instrument_list_model.h"
 #include "app/gui/register_rows.h"
+#include "storage/backup.h"
 #include "storage/instrument_repository.h"
 #include "storage/session_repository.h"
 #include "storage/workbook.h"
 #include "storage/workbook_error.h"
 
 #include <QAction>
+#include <QDateTime>
 #include <QFileDialog>
 #include <QFileInfo>
 #include <QHeaderView>
@@ -44,6 +46,8 @@ void MainWindow::buildMenus() {
     QAction* open = workbookMenu->addAction(tr("&Open…"));
     open->setShortcut(QKeySequence::Open);
     connect(open, &QAction::triggered, this, &MainWindow::chooseWorkbook);
+    QAction* backup = workbookMenu->addAction(tr("&Back up now…"));
+    connect(backup, &QAction::triggered, this, &MainWindow::backUpNow);
     workbookMenu->addSeparator();
     QAction* quit = workbookMenu->addAction(tr("&Quit"));
     quit->setShortcut(QKeySequence::Quit);
@@ -111,6 +115,7 @@ bool MainWindow::openWorkbook(const QString& path, QString* error) {
     }
     setWindowTitle(tr("%1 — Meterwright").arg(QFileInfo(path).fileName()));
     reloadRegister();
+    const QString backupNote = takeAutomaticBackup();
     QString status = tr("Workbook %1: %2 instruments")
                          .arg(QFileInfo(path).fileName())
                          .arg(instrumentModel_->rowCount());
@@ -118,8 +123,48 @@ bool MainWindow::openWorkbook(const QString& path, QString* error) {
     if (workbook_->isReadOnly()) {
         status += tr(" — read-only (%1)").arg(workbook_->readOnlyReason());
     }
+    if (!backupNote.isEmpty()) {
+        status += QStringLiteral(" — ") + backupNote;
+    }
     statusBar()->showMessage(status);
     return true;
+}
+
+QString MainWindow::takeAutomaticBackup() {
+    // A daily rolling set beside the workbook; a failed backup is reported, never fatal, and
+    // never touches the workbook itself.
+    if (workbook_->isReadOnly()) {
+        return {};
+    }
+    try {
+        const auto written =
+            storage::backupIfDue(*workbook_, storage::BackupPolicy{}, QDateTime::currentDateTime());
+        return written ? tr("automatic backup written (%1)").arg(QFileInfo(*written).fileName())
+                       : QString();
+    } catch (const storage::WorkbookError& failure) {
+        return tr("automatic backup failed: %1").arg(failure.message());
+    }
+}
+
+void MainWindow::backUpNow() {
+    if (!workbook_) {
+        QMessageBox::information(this, tr("Back up workbook"), tr("Open a workbook first."));
+        return;
+    }
+    const QString target = QFileDialog::getSaveFileName(
+        this, tr("Back up workbook to"),
+        workbook_->path() +
+            QDateTime::currentDateTime().toString(QStringLiteral("'.backup-'yyyyMMdd-HHmm'.mwb'")),
+        tr("Meterwright workbooks (*.mwb)"));
+    if (target.isEmpty()) {
+        return;
+    }
+    try {
+        storage::backupWorkbook(*workbook_, target);
+        statusBar()->showMessage(tr("Backup written to %1").arg(target));
+    } catch (const storage::WorkbookError& failure) {
+        QMessageBox::warning(this, tr("Backup failed"), failure.message());
+    }
 }
 
 void MainWindow::chooseWorkbook() {

@@ -35,9 +35,12 @@ public:
 public slots:
     void showAbout();
     void chooseWorkbook();
+    void backUpNow();
 
 private:
     void buildMenus();
+    // Writes the daily automatic backup if one is due; returns what to tell the user.
+    QString takeAutomaticBackup();
     void buildRegister();
     void reloadRegister();
     void showSelectedInstrument();

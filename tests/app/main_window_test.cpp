@@ -5,6 +5,7 @@
 #include "app/gui/instrument_list_model.h"
 #include "app/gui/main_window.h"
 #include "app/gui/safety_notice.h"
+#include "storage/backup.h"
 #include "storage/instrument_repository.h"
 #include "storage/workbook.h"
 
@@ -130,4 +131,8 @@ TEST_CASE("opening a workbook fills the register and selecting a row shows the d
     CHECK(
         window.detailPanel()->fieldText(QStringLiteral("movement")).contains(QStringLiteral("mA")));
     CHECK(window.statusBar()->currentMessage().contains(QStringLiteral("1 instruments")));
+
+    // Opening a writable workbook keeps the daily rolling backup beside it.
+    CHECK(window.statusBar()->currentMessage().contains(QStringLiteral("automatic backup")));
+    CHECK(mw::storage::automaticBackups(path, mw::storage::BackupPolicy{}).size() == 1);
 }
