@@ -1,5 +1,6 @@
 // Top-level commands that work on a workbook file: verify (and the others listed in the
 // table at the bottom of this file).
+#include "app/cli/backup_commands.h"
 #include "app/cli/cli_support.h"
 #include "app/cli/command_table.h"
 #include "app/cli/demo_command.h"
@@ -89,6 +90,8 @@ std::vector<Command> workbookCommands() {
         {QStringLiteral("verify"),
          QStringLiteral("check a workbook's integrity and the digest chain of approved records"),
          runVerify},
+        backupCommand(),
+        restoreCommand(),
     };
 }
 

@@ -1,0 +1,92 @@
+// `meterwright backup` and `meterwright restore` run as separate processes: a copy made while the
+// workbook is in use verifies sound, nothing is overwritten, and a restore keeps the old file.
+#include "support/cli_process.h"
+
+#include <catch2/catch.hpp>
+
+#include <QDir>
+#include <QFile>
+#include <QTemporaryDir>
+
+using mwtest::requireUsageError;
+using mwtest::runMeterwright;
+
+namespace {
+
+QString makeDemo(const QTemporaryDir& dir) {
+    const QString path = dir.filePath(QStringLiteral("shop.mwb"));
+    const auto result = runMeterwright({QStringLiteral("demo"), path});
+    INFO(result.err.toStdString());
+    REQUIRE(result.exitCode == 0);
+    return path;
+}
+
+} // namespace
+
+TEST_CASE("backup writes a sound copy and refuses to overwrite") {
+    QTemporaryDir dir;
+    REQUIRE(dir.isValid());
+    const QString workbook = makeDemo(dir);
+    const QString copy = dir.filePath(QStringLiteral("copy.mwb"));
+
+    const auto written = runMeterwright({QStringLiteral("backup"), workbook, copy});
+    INFO(written.err.toStdString());
+    REQUIRE(written.exitCode == 0);
+    CHECK(runMeterwright({QStringLiteral("verify"), copy}).exitCode == 0);
+
+    const QByteArray before = [&] {
+        QFile file(copy);
+        REQUIRE(file.open(QIODevice::ReadOnly));
+        return file.readAll();
+    }();
+    requireUsageError({QStringLiteral("backup"), workbook, copy}, "already exists");
+    QFile again(copy);
+    REQUIRE(again.open(QIODevice::ReadOnly));
+    CHECK(again.readAll() == before);
+}
+
+TEST_CASE("automatic backup is written once a day into the folder beside the workbook") {
+    QTemporaryDir dir;
+    REQUIRE(dir.isValid());
+    const QString workbook = makeDemo(dir);
+    const auto first = runMeterwright({QStringLiteral("backup"), QStringLiteral("--automatic"),
+                                       workbook, QStringLiteral("--json")});
+    REQUIRE(first.exitCode == 0);
+    CHECK(first.outText().contains(QStringLiteral("shop.mwb.backups")));
+    const auto second =
+        runMeterwright({QStringLiteral("backup"), QStringLiteral("--automatic"), workbook});
+    REQUIRE(second.exitCode == 0);
+    CHECK(second.outText().contains(QStringLiteral("no automatic backup was due")));
+    CHECK(QDir(workbook + QStringLiteral(".backups")).entryList(QDir::Files).size() == 1);
+}
+
+TEST_CASE("restore puts a backup back and keeps the replaced file") {
+    QTemporaryDir dir;
+    REQUIRE(dir.isValid());
+    const QString workbook = makeDemo(dir);
+    const QString copy = dir.filePath(QStringLiteral("copy.mwb"));
+    REQUIRE(runMeterwright({QStringLiteral("backup"), workbook, copy}).exitCode == 0);
+
+    const auto restored = runMeterwright({QStringLiteral("restore"), copy, workbook});
+    INFO(restored.err.toStdString());
+    REQUIRE(restored.exitCode == 0);
+    CHECK(QFile::exists(workbook + QStringLiteral(".before-restore")));
+    CHECK(runMeterwright({QStringLiteral("verify"), workbook}).exitCode == 0);
+}
+
+TEST_CASE("restore refuses a file that is not a workbook and leaves the workbook alone") {
+    QTemporaryDir dir;
+    REQUIRE(dir.isValid());
+    const QString workbook = makeDemo(dir);
+    const QString junk = dir.filePath(QStringLiteral("junk.mwb"));
+    QFile file(junk);
+    REQUIRE(file.open(QIODevice::WriteOnly));
+    file.write("not a workbook\n");
+    file.close();
+
+    requireUsageError({QStringLiteral("restore"), junk, workbook}, "not a workbook");
+    CHECK_FALSE(QFile::exists(workbook + QStringLiteral(".before-restore")));
+    CHECK(runMeterwright({QStringLiteral("verify"), workbook}).exitCode == 0);
+    requireUsageError({QStringLiteral("backup")}, "give WORKBOOK and TARGET");
+    requireUsageError({QStringLiteral("restore"), junk}, "give BACKUP and WORKBOOK");
+}
