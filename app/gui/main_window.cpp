@@ -155,8 +155,16 @@ void MainWindow::backUpNow() {
         this, tr("Back up workbook to"),
         workbook_->path() +
             QDateTime::currentDateTime().toString(QStringLiteral("'.backup-'yyyyMMdd-HHmm'.mwb'")),
-        tr("Meterwright workbooks (*.mwb)"));
+        tr("Meterwright workbooks (*.mwb)"), nullptr, QFileDialog::DontConfirmOverwrite);
     if (target.isEmpty()) {
+        return;
+    }
+    if (QFileInfo::exists(target)) {
+        // A backup never replaces a file: it could be the only copy of something.
+        QMessageBox::warning(this, tr("Backup not written"),
+                             tr("%1 already exists. Choose a new file name; a backup never "
+                                "overwrites a file.")
+                                 .arg(target));
         return;
     }
     try {
