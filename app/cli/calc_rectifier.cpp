@@ -303,27 +303,47 @@ int runIndication(const QStringList& arguments) {
 }
 
 double sampleVolts(const QString& where, const QString& cell, bool decimalComma) {
+    const QString escaped = escapedCell(cell);
+    if (escaped != cell) {
+        // The parser's own message would quote the raw text, cut short at a NUL.
+        throw UsageError(
+            QStringLiteral("%1 \"%2\": a control character in the cell").arg(where, escaped));
+    }
     try {
         ParseOptions options;
         options.decimalComma = decimalComma;
         return parseValue(cell.toStdString(), Unit::Volt, options);
     } catch (const QuantityError& error) {
         throw UsageError(
-            QStringLiteral("%1 \"%2\": %3").arg(where, cell, QString::fromStdString(error.what())));
+            QStringLiteral("%1 \"%2\": %3")
+                .arg(where, escapedCell(cell), escapedCell(QString::fromStdString(error.what()))));
     }
 }
 
-// One period of samples: a CSV whose header has a column v, or else one value per line.
+// The column v of a samples CSV; n and t may number or time the samples but are not read, since
+// the samples are taken as evenly spaced in file order. Any other column is refused.
+int sampleColumn(const CsvTable& csv) {
+    csv.requireKnownColumns({QStringLiteral("v"), QStringLiteral("n"), QStringLiteral("t")});
+    const int column = csv.column(QStringLiteral("v"));
+    if (column < 0) {
+        throw UsageError(QStringLiteral("%1: the header must name the column v (optional, not "
+                                        "read: n, t)")
+                             .arg(csv.where(csv.header.line)));
+    }
+    return column;
+}
+
+// One period of samples: a CSV with a header line, or else one value per line. A sample starts
+// with a digit, a sign or a point, so a first line starting with a letter or a quote is a header.
 std::vector<double> readSamples(const QString& path, bool decimalComma) {
     const std::vector<CsvLine> lines = readDataLines(path, QStringLiteral("samples"));
     std::vector<double> volts;
+    const QString first = lines.empty() ? QString() : lines.front().text.trimmed();
     const bool table =
-        !lines.empty() && splitCsvLine(lines.front().text, separatorOf(lines.front().text),
-                                       path + QStringLiteral(" line %1").arg(lines.front().number))
-                              .contains(QStringLiteral("v"), Qt::CaseInsensitive);
+        !first.isEmpty() && (first.front().isLetter() || first.front() == QLatin1Char('"'));
     if (table) {
         const CsvTable csv = tableFromLines(path, lines);
-        const int column = csv.column(QStringLiteral("v"));
+        const int column = sampleColumn(csv);
         for (const CsvRow& row : csv.rows) {
             volts.push_back(sampleVolts(csv.where(row.line) + QStringLiteral(", column v"),
                                         row.cells[column], decimalComma));
@@ -398,8 +418,9 @@ int runWaveform(const QStringList& arguments) {
                    QStringLiteral("DC offset added to a sine (default 0V)."), QStringLiteral("V"));
     addValueOption(parser, QStringLiteral("samples"),
                    QStringLiteral("File with one period of evenly spaced samples in volts: one "
-                                  "value per line, or a CSV whose header has a column v "
-                                  "(separator ';' if the header has one, else ','). Replaces "
+                                  "value per line, or a CSV whose header has a column v and "
+                                  "optionally n or t, not read (separator ';' if the header "
+                                  "has one, else ','). Replaces "
                                   "--waveform, --rms, --peak and --offset."),
                    QStringLiteral("FILE"));
     addValueOption(parser, QStringLiteral("rectifier"),

@@ -4,7 +4,6 @@
 #include "app/cli/cli_support.h"
 
 #include <QFile>
-#include <QTextStream>
 
 namespace mw::cli {
 namespace {
@@ -38,18 +37,68 @@ QString CsvTable::where(int line) const {
     return QStringLiteral("%1 line %2").arg(path).arg(line);
 }
 
+void CsvTable::requireKnownColumns(const QStringList& allowed) const {
+    for (qsizetype i = 0; i < header.cells.size(); ++i) {
+        const QString& name = header.cells[i];
+        if (allowed.contains(name, Qt::CaseInsensitive)) {
+            continue;
+        }
+        const QString what = name.isEmpty()
+                                 ? QStringLiteral("column %1 has no name").arg(i + 1)
+                                 : QStringLiteral("unknown column \"%1\"").arg(escapedCell(name));
+        throw UsageError(QStringLiteral("%1: %2; the columns are %3")
+                             .arg(where(header.line), what, allowed.join(QStringLiteral(", "))));
+    }
+}
+
+QString escapedCell(const QString& text) {
+    QString escaped;
+    escaped.reserve(text.size());
+    for (const QChar c : text) {
+        const char16_t code = c.unicode();
+        if (code < 0x20 || code == 0x7F || (code >= 0x80 && code < 0xA0)) {
+            escaped +=
+                QStringLiteral("\\x%1").arg(static_cast<uint>(code), 2, 16, QLatin1Char('0'));
+        } else {
+            escaped += c;
+        }
+    }
+    return escaped;
+}
+
 std::vector<CsvLine> readDataLines(const QString& path, const QString& option) {
     QFile file(path);
-    if (!file.open(QIODevice::ReadOnly | QIODevice::Text)) {
+    // Binary: text mode would drop a CR inside a cell ("1\r5" read as 15) without a word.
+    if (!file.open(QIODevice::ReadOnly)) {
         throw UsageError(
             QStringLiteral("option --%1 \"%2\": %3").arg(option, path, file.errorString()));
     }
-    QTextStream in(&file);
+    const QString content = QString::fromUtf8(file.readAll());
+    if (content.contains(QLatin1Char('\r')) && !content.contains(QLatin1Char('\n'))) {
+        throw UsageError(QStringLiteral("%1: lines end with CR only (old Mac line ends); save the "
+                                        "file with LF or CRLF line ends")
+                             .arg(path));
+    }
+    QStringList texts = content.split(QLatin1Char('\n'));
+    if (!texts.isEmpty() && texts.back().isEmpty()) {
+        texts.pop_back(); // the newline after the last line does not start another one
+    }
     std::vector<CsvLine> lines;
-    for (int number = 1; !in.atEnd(); ++number) {
-        QString text = in.readLine();
+    for (int number = 1; number <= texts.size(); ++number) {
+        QString text = texts[number - 1];
+        if (text.endsWith(QLatin1Char('\r'))) {
+            text.chop(1); // CRLF line end
+        }
+        const qsizetype cr = text.indexOf(QLatin1Char('\r'));
+        if (cr >= 0) {
+            throw UsageError(QStringLiteral("%1 line %2: a carriage return (CR) at character %3 "
+                                            "inside the line; lines end with LF or CRLF")
+                                 .arg(path)
+                                 .arg(number)
+                                 .arg(cr + 1));
+        }
         if (number == 1 && text.startsWith(QChar(0xFEFF))) {
-            text.remove(0, 1); // a byte-order mark that QTextStream did not consume
+            text.remove(0, 1); // the byte-order mark spreadsheets write before UTF-8
         }
         const QString trimmed = text.trimmed();
         if (trimmed.isEmpty() || trimmed.startsWith(QLatin1Char('#'))) {

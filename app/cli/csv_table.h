@@ -32,10 +32,19 @@ struct CsvTable {
     int column(const QString& name) const;
     // "FILE line N", the prefix of every message about that line.
     QString where(int line) const;
+    // UsageError naming the first header cell that is not one of `allowed` (case-insensitive)
+    // and listing `allowed`: a misspelt optional column must not be skipped silently.
+    void requireKnownColumns(const QStringList& allowed) const;
 };
 
+// `text` with every control character written as \xNN, so that a NUL or a CR echoed from a cell
+// can neither cut nor garble a one-line message.
+QString escapedCell(const QString& text);
+
 // The lines of `path` that hold data: a UTF-8 byte-order mark, blank lines and lines starting
-// with '#' are skipped. A file that cannot be read is a UsageError naming `option`.
+// with '#' are skipped. Lines end with LF or CRLF; any other CR (inside a line, or a file with
+// CR-only line ends) is a UsageError naming the line. A file that cannot be read is a UsageError
+// naming `option`.
 std::vector<CsvLine> readDataLines(const QString& path, const QString& option);
 
 // ';' when the header line holds one (the separator of spreadsheets set to a decimal comma),

@@ -18,6 +18,9 @@ struct CsvColumns {
 };
 
 CsvColumns columnsOf(const CsvTable& table) {
+    // A misspelt "direction" would otherwise turn up and down readings into repeats.
+    table.requireKnownColumns({QStringLiteral("applied"), QStringLiteral("indicated"),
+                               QStringLiteral("direction"), QStringLiteral("repeat")});
     CsvColumns columns{
         table.column(QStringLiteral("applied")), table.column(QStringLiteral("indicated")),
         table.column(QStringLiteral("direction")), table.column(QStringLiteral("repeat"))};
@@ -33,13 +36,20 @@ double cellValue(const QString& where, const QString& cell, Unit unit, bool deci
     if (cell.isEmpty()) {
         throw UsageError(where + QStringLiteral(": empty"));
     }
+    const QString escaped = escapedCell(cell);
+    if (escaped != cell) {
+        // The parser's own message would quote the raw text, cut short at a NUL.
+        throw UsageError(
+            QStringLiteral("%1 \"%2\": a control character in the cell").arg(where, escaped));
+    }
     try {
         ParseOptions options;
         options.decimalComma = decimalComma;
         return parseValue(cell.toStdString(), unit, options);
     } catch (const QuantityError& error) {
         throw UsageError(
-            QStringLiteral("%1 \"%2\": %3").arg(where, cell, QString::fromStdString(error.what())));
+            QStringLiteral("%1 \"%2\": %3")
+                .arg(where, escapedCell(cell), escapedCell(QString::fromStdString(error.what()))));
     }
 }
 
@@ -59,16 +69,18 @@ EvaluationReading readRow(const CsvTable& table, const CsvRow& row, const CsvCol
     if (direction == QStringLiteral("down")) {
         reading.direction = Direction::Down;
     } else if (!direction.isEmpty() && direction != QStringLiteral("up")) {
-        throw UsageError(where("direction") +
-                         QStringLiteral(" \"%1\": expected up or down").arg(direction));
+        throw UsageError(
+            where("direction") +
+            QStringLiteral(" \"%1\": expected up or down").arg(escapedCell(direction)));
     }
     const QString repeat = cellAt(columns.repeat);
     if (!repeat.isEmpty()) {
         bool ok = false;
         reading.repeat = repeat.toInt(&ok);
         if (!ok || reading.repeat < 1) {
-            throw UsageError(where("repeat") +
-                             QStringLiteral(" \"%1\": expected a whole number >= 1").arg(repeat));
+            throw UsageError(
+                where("repeat") +
+                QStringLiteral(" \"%1\": expected a whole number >= 1").arg(escapedCell(repeat)));
         }
     }
     return reading;

@@ -32,6 +32,15 @@ QString fixture(const QTemporaryDir& dir, const char* name, const char* text) {
     return path;
 }
 
+// Writes `bytes` unchanged (CR and NUL included) to `name` in `dir` and returns the path.
+QString rawFixture(const QTemporaryDir& dir, const char* name, const QByteArray& bytes) {
+    const QString path = dir.filePath(QString::fromUtf8(name));
+    QFile file(path);
+    REQUIRE(file.open(QIODevice::WriteOnly));
+    REQUIRE(file.write(bytes) == bytes.size());
+    return path;
+}
+
 // Invented readings of a 0-10 V class 1.5 meter with zero +0.05 V, span 1.01 and hysteresis
 // 0.02 V (down 0.01 V above the mean, up 0.01 V below).
 const char* const kSynthetic = "applied,indicated,direction\n"
@@ -254,6 +263,56 @@ TEST_CASE("calc evaluate skips a UTF-8 byte-order mark, blank lines and comments
                                 "applied,indicated\n\n# first run\n5,5.1\n\n10,10.1\n\n");
     const QJsonObject json = runJson(evaluate(bom, {}));
     CHECK(json.value(QStringLiteral("points")).toArray().size() == 2);
+}
+
+TEST_CASE("calc evaluate refuses a header column it does not know") {
+    QTemporaryDir dir;
+    REQUIRE(dir.isValid());
+    // A misspelt "direction" must not turn up and down readings into repeats of one point.
+    const QString misspelt =
+        fixture(dir, "misspelt.csv", "applied,indicated,directon\n5,5.1,up\n5,5.2,down\n");
+    const auto refused = requireUsageError(evaluate(misspelt, {}),
+                                           "misspelt.csv line 1: unknown column \"directon\"");
+    CHECK(refused.err.contains("applied, indicated, direction, repeat"));
+    // A trailing separator in the header leaves a column without a name.
+    const QString unnamed = fixture(dir, "unnamed.csv", "applied,indicated,\n5,5.1,\n");
+    requireUsageError(evaluate(unnamed, {}), "unnamed.csv line 1: column 3 has no name");
+}
+
+TEST_CASE("calc evaluate takes CRLF line ends and refuses any other carriage return") {
+    QTemporaryDir dir;
+    REQUIRE(dir.isValid());
+    // RFC 4180 2.1 (from memory): CSV lines end with CRLF; common practice: Windows programs
+    // write them. The same readings with LF and with CRLF give the same evaluation.
+    const QByteArray lf = kSynthetic;
+    QByteArray crlf = lf;
+    crlf.replace("\n", "\r\n");
+    const QJsonObject fromLf = runJson(evaluate(rawFixture(dir, "lf.csv", lf), {}));
+    const QJsonObject fromCrlf = runJson(evaluate(rawFixture(dir, "crlf.csv", crlf), {}));
+    CHECK(fromCrlf.value(QStringLiteral("points")).toArray().size() == 6);
+    CHECK(fromCrlf == fromLf);
+    // A CR inside a cell would otherwise vanish and "1\r5" be read as 15.
+    const QString stray = rawFixture(dir, "stray.csv", "applied,indicated\r\n5,1\r5\r\n");
+    requireUsageError(evaluate(stray, {}),
+                      "stray.csv line 2: a carriage return (CR) at character 4");
+    // Common practice (from memory): classic Mac OS ended lines with CR alone.
+    const QString mac = rawFixture(dir, "mac.csv", "applied,indicated\r5,5.1\r10,10.1\r");
+    const auto crOnly = requireUsageError(evaluate(mac, {}), "mac.csv: lines end with CR only");
+    CHECK_FALSE(crOnly.err.contains("header"));
+}
+
+TEST_CASE("calc evaluate echoes control characters of a bad cell escaped") {
+    QTemporaryDir dir;
+    REQUIRE(dir.isValid());
+    // A NUL would end the message early on a C-string path; it comes back as \x00 with the rest.
+    static const char kWithNul[] = "applied,indicated\n5,5\0001\n";
+    const QByteArray withNul(kWithNul, sizeof kWithNul - 1);
+    const QString nul = rawFixture(dir, "nul.csv", withNul);
+    const auto refused = requireUsageError(
+        evaluate(nul, {}), "nul.csv line 2, column indicated \"5\\x001\": a control character");
+    CHECK_FALSE(refused.err.contains('\0'));
+    const QString tab = fixture(dir, "tab.csv", "applied,indicated,direction\n5,5.1,u\tp\n");
+    requireUsageError(evaluate(tab, {}), "column direction \"u\\x09p\"");
 }
 
 TEST_CASE("calc evaluate names the CSV line of a reading off the range's scale") {

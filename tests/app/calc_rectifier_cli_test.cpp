@@ -247,6 +247,41 @@ TEST_CASE("calc waveform --samples names the line of a bad sample") {
     requireUsageError(args({"waveform", "--rms", "1V", "--samples"}) + QStringList{one}, "--rms");
 }
 
+TEST_CASE("calc waveform --samples reads only the columns v, n and t") {
+    QTemporaryDir dir;
+    REQUIRE(dir.isValid());
+    const QStringList samples = args({"waveform", "--samples"});
+    const QString misspelt = fixture(dir, "volt.csv", "n,volt\n1,1\n2,-1\n");
+    const auto unknown = requireUsageError(samples + QStringList{misspelt},
+                                           "volt.csv line 1: unknown column \"volt\"");
+    CHECK(unknown.err.contains("the columns are v, n, t"));
+    const QString extra = fixture(dir, "extra.csv", "t,v,i\n0,1,1\n1,-1,1\n");
+    requireUsageError(samples + QStringList{extra}, "unknown column \"i\"");
+    const QString noV = fixture(dir, "no_v.csv", "n,t\n1,0\n2,1\n");
+    requireUsageError(samples + QStringList{noV},
+                      "no_v.csv line 1: the header must name the column v");
+}
+
+TEST_CASE("calc waveform --samples takes CRLF, refuses a stray CR and escapes a NUL") {
+    QTemporaryDir dir;
+    REQUIRE(dir.isValid());
+    const QStringList samples = args({"waveform", "--samples"});
+    // RFC 4180 2.1 (from memory): CRLF line ends. A square wave of 2 V: rms 2 V, form factor 1.
+    const QString crlf = fixture(dir, "crlf.csv", "n,v\r\n1,2\r\n2,-2\r\n");
+    const QJsonObject json = runJson(samples + QStringList{crlf});
+    CHECK(json.value(QStringLiteral("samples")).toInt() == 2);
+    CHECK(number(json, "rms_v") == relative(2.0, 1e-12));
+    CHECK(number(json, "form_factor") == relative(1.0, 1e-12));
+    const QString stray = fixture(dir, "stray.txt", "2\n-2\r5\n");
+    requireUsageError(samples + QStringList{stray}, "stray.txt line 2: a carriage return (CR)");
+    static const char kWithNul[] = "2\n-\0002\n";
+    const QString nul = fixture(dir, "nul.txt", QByteArray(kWithNul, sizeof kWithNul - 1));
+    const auto refused =
+        requireUsageError(samples + QStringList{nul}, "nul.txt line 2 \"-\\x002\"");
+    CHECK_FALSE(refused.err.contains('\0'));
+    CHECK(refused.err.contains("a control character in the cell"));
+}
+
 TEST_CASE("calc indication and waveform print numbers in engineering notation") {
     // Square of 1 V rms: +11.07 % (exact π/(2√2), as above), shown with the percent sign of the
     // app's one number format instead of a fixed count of decimals.
