@@ -2,13 +2,17 @@
 #include "storage/backup.h"
 
 #include "storage/record_digest.h"
+#include "storage/sql_support.h"
 #include "storage/sqlite_dialect.h"
 #include "storage/workbook.h"
 #include "storage/workbook_error.h"
 
+#include <QAtomicInteger>
 #include <QDir>
 #include <QFile>
 #include <QFileInfo>
+#include <QSqlDatabase>
+#include <QTemporaryDir>
 #include <QTimeZone>
 
 namespace mw::storage {
@@ -44,21 +48,130 @@ void moveWithCompanions(const QString& from, const QString& to) {
     }
 }
 
+// A bare SQLite connection outside Workbook: no pragmas, no checks and no migration, for
+// copying an older backup and for testing whether a target file is in use.
+class RawConnection {
+public:
+    RawConnection(const QString& path, bool readOnly, int busyTimeoutMs)
+        : name_(QStringLiteral("meterwright-restore-%1").arg(counter_.fetchAndAddRelaxed(1))) {
+        QSqlDatabase db = QSqlDatabase::addDatabase(QStringLiteral("QSQLITE"), name_);
+        db.setDatabaseName(path);
+        QString options = QStringLiteral("QSQLITE_BUSY_TIMEOUT=%1").arg(busyTimeoutMs);
+        if (readOnly) {
+            options += QStringLiteral(";QSQLITE_OPEN_READONLY");
+        }
+        db.setConnectOptions(options);
+        if (!db.open()) {
+            throw sql::errorFrom(db.lastError(), QStringLiteral("opening %1").arg(path));
+        }
+    }
+    ~RawConnection() {
+        {
+            QSqlDatabase db = QSqlDatabase::database(name_, false);
+            db.close();
+        }
+        QSqlDatabase::removeDatabase(name_);
+    }
+    RawConnection(const RawConnection&) = delete;
+    RawConnection& operator=(const RawConnection&) = delete;
+    QSqlDatabase db() const { return QSqlDatabase::database(name_, false); }
+
+private:
+    static inline QAtomicInteger<quint64> counter_;
+    QString name_;
+};
+
+// VACUUM INTO reads through the backup's WAL, which a plain file copy would leave behind.
+void copyThroughWal(const QString& backupPath, const QString& copyPath) {
+    const RawConnection backup(backupPath, true, 2000);
+    dialect::vacuumInto(backup.db(), copyPath);
+}
+
+void requireSound(const Workbook& workbook, const QString& backupPath) {
+    const VerificationReport report = verifyWorkbook(workbook);
+    if (!report.sound()) {
+        throw WorkbookError(Kind::Corrupt, QStringLiteral("the backup %1 is not sound: %2")
+                                               .arg(backupPath, report.firstMismatch.value_or(
+                                                                    report.integrityMessage)));
+    }
+}
+
+// An older backup cannot be checked read-only (its chain is only computed by the current
+// schema), so a throw-away copy is upgraded in a temporary folder and checked there.
+void checkOlderBackup(const QString& backupPath) {
+    const QTemporaryDir scratch;
+    if (!scratch.isValid()) {
+        throw WorkbookError(Kind::Io, QStringLiteral("cannot check the older backup %1: no "
+                                                     "temporary folder (%2)")
+                                          .arg(backupPath, scratch.errorString()));
+    }
+    const QString copy = scratch.filePath(QStringLiteral("check.mwb"));
+    try {
+        copyThroughWal(backupPath, copy);
+        const Workbook upgraded(copy);
+        requireSound(upgraded, backupPath);
+    } catch (const WorkbookError& error) {
+        QString message = error.message();
+        message.replace(copy, QStringLiteral("its upgraded copy"));
+        throw WorkbookError(error.kind(), message.startsWith(QStringLiteral("the backup"))
+                                              ? message
+                                              : QStringLiteral("the older backup %1 cannot be "
+                                                               "upgraded and checked: %2")
+                                                    .arg(backupPath, message));
+    }
+}
+
 void checkRestorable(const QString& backupPath) {
     OpenOptions options;
     options.readOnly = true;
     try {
         const Workbook backup(backupPath, options);
-        const VerificationReport report = verifyWorkbook(backup);
-        if (!report.sound()) {
-            throw WorkbookError(Kind::Corrupt, QStringLiteral("the backup %1 is not sound: %2")
-                                                   .arg(backupPath, report.firstMismatch.value_or(
-                                                                        report.integrityMessage)));
-        }
+        requireSound(backup, backupPath);
     } catch (const WorkbookError& error) {
-        if (error.kind() != Kind::NeedsUpgrade) { // an older workbook is upgraded when opened
+        if (error.kind() != Kind::NeedsUpgrade) {
             throw;
         }
+        checkOlderBackup(backupPath);
+    }
+}
+
+void requireReplaceableTarget(const QString& targetPath) {
+    const QFileInfo target(targetPath);
+    const QString folder = target.absolutePath();
+    if (!QFileInfo(folder).isDir()) {
+        throw WorkbookError(Kind::CannotOpen,
+                            QStringLiteral("the folder %1 does not exist").arg(folder));
+    }
+    if ((target.exists() || target.isSymLink()) && !target.isFile()) {
+        throw WorkbookError(Kind::CannotOpen, QStringLiteral("%1 exists and is not a file; a "
+                                                             "restore only replaces a workbook "
+                                                             "file")
+                                                  .arg(targetPath));
+    }
+}
+
+// In WAL mode every open connection holds a shared lock on the database file, so an exclusive
+// lock is only granted when no other connection, in any process, has the file open. Closing
+// this last connection also checkpoints the WAL into the file that is about to be moved aside.
+void requireNotInUse(const QString& targetPath) {
+    if (!QFileInfo::exists(targetPath)) {
+        return;
+    }
+    try {
+        const RawConnection probe(targetPath, false, 100);
+        sql::execText(probe.db(), QStringLiteral("PRAGMA locking_mode = EXCLUSIVE"),
+                      QStringLiteral("checking whether %1 is in use").arg(targetPath));
+        sql::execText(probe.db(), QStringLiteral("BEGIN EXCLUSIVE"),
+                      QStringLiteral("checking whether %1 is in use").arg(targetPath));
+        sql::execText(probe.db(), QStringLiteral("COMMIT"),
+                      QStringLiteral("checking whether %1 is in use").arg(targetPath));
+    } catch (const WorkbookError& error) {
+        if (error.kind() == Kind::Locked) {
+            throw WorkbookError(Kind::Locked, QStringLiteral("%1 is in use by another program; "
+                                                             "close it everywhere first")
+                                                  .arg(targetPath));
+        }
+        // A file SQLite cannot read as a database has no SQLite users; it is only moved aside.
     }
 }
 
@@ -123,26 +236,44 @@ std::optional<QString> backupIfDue(const Workbook& workbook, const BackupPolicy&
     return target;
 }
 
-void restoreWorkbook(const QString& backupPath, const QString& targetPath) {
+RestoreOutcome restoreWorkbook(const QString& backupPath, const QString& targetPath) {
     if (!QFileInfo(backupPath).isFile()) {
         throw WorkbookError(Kind::CannotOpen,
                             QStringLiteral("the backup %1 does not exist").arg(backupPath));
     }
+    requireReplaceableTarget(targetPath);
     checkRestorable(backupPath);
     const QString staging = freeName(targetPath + QStringLiteral(".restoring"));
-    if (!QFile::copy(backupPath, staging)) {
-        throw WorkbookError(Kind::Io,
-                            QStringLiteral("cannot copy %1 to %2").arg(backupPath, staging));
+    try {
+        copyThroughWal(backupPath, staging);
+    } catch (const WorkbookError& error) {
+        QFile::remove(staging);
+        QString message = error.message();
+        message.replace(staging, QStringLiteral("a new file beside %1").arg(targetPath));
+        throw WorkbookError(Kind::Io, message);
     }
-    if (QFileInfo::exists(targetPath)) {
-        moveWithCompanions(targetPath, freeName(targetPath + QStringLiteral(".before-restore")));
+    RestoreOutcome outcome;
+    try {
+        requireNotInUse(targetPath);
+        if (QFileInfo::exists(targetPath)) {
+            outcome.replacedKeptAs = freeName(targetPath + QStringLiteral(".before-restore"));
+            moveWithCompanions(targetPath, outcome.replacedKeptAs);
+        }
+    } catch (const WorkbookError&) {
+        QFile::remove(staging);
+        throw;
     }
     if (!QFile::rename(staging, targetPath)) {
+        QFile::remove(staging);
+        if (!outcome.replacedKeptAs.isEmpty()) {
+            moveWithCompanions(outcome.replacedKeptAs, targetPath);
+        }
         throw WorkbookError(Kind::Io, QStringLiteral("cannot put the restored workbook at %1; "
-                                                     "it is at %2")
-                                          .arg(targetPath, staging));
+                                                     "the file there was left as it was")
+                                          .arg(targetPath));
     }
     QFile::setPermissions(targetPath, QFile::permissions(targetPath) | QFile::WriteOwner);
+    return outcome;
 }
 
 } // namespace mw::storage

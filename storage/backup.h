@@ -31,8 +31,17 @@ QStringList automaticBackups(const QString& workbookPath, const BackupPolicy& po
 std::optional<QString> backupIfDue(const Workbook& workbook, const BackupPolicy& policy,
                                    const QDateTime& now);
 
-// Replaces the (closed) workbook at `targetPath` by the backup after checking that the backup
-// opens as a sound workbook. The replaced file is kept as "<target>.before-restore".
-void restoreWorkbook(const QString& backupPath, const QString& targetPath);
+struct RestoreOutcome {
+    // Where the replaced workbook was kept ("<target>.before-restore", or with a ".2" ...
+    // suffix when that name is taken); empty when there was no file to replace.
+    QString replacedKeptAs;
+};
+
+// Replaces the workbook at `targetPath` by the backup after checking that the backup is a
+// sound workbook (an older-schema backup is upgraded in a throw-away copy to be checked).
+// The copy is written with VACUUM INTO, so writes still in the backup's WAL come along.
+// Refuses (WorkbookError, target untouched) when the target is open in any program (Locked),
+// is not a regular file or its folder does not exist (CannotOpen).
+RestoreOutcome restoreWorkbook(const QString& backupPath, const QString& targetPath);
 
 } // namespace mw::storage

@@ -150,6 +150,11 @@ void Workbook::checkHeaderBeforeOpening(const OpenOptions& options) {
     if (!info.isFile()) {
         throw WorkbookError(Kind::CannotOpen, QStringLiteral("%1 is not a file").arg(path_));
     }
+    if (info.size() == 0 &&
+        !(options.createIfMissing && options.initializeEmptyFile && !options.readOnly)) {
+        throw WorkbookError(Kind::NotAWorkbook,
+                            QStringLiteral("%1 is empty; it is not a workbook").arg(path_));
+    }
     QFile file(path_);
     if (!file.open(QIODevice::ReadOnly)) {
         throw WorkbookError(Kind::CannotOpen,

@@ -14,6 +14,9 @@ namespace mw::storage {
 struct OpenOptions {
     bool readOnly = false;        // open read-only even when the file could be written
     bool createIfMissing = false; // create a new, empty workbook when the file does not exist
+    // With createIfMissing, also turn an existing 0-byte file into a workbook. Off by default:
+    // an empty file picked by mistake is refused rather than silently written to.
+    bool initializeEmptyFile = false;
     // How long a write waits for another process's write to finish before failing as Locked.
     std::chrono::milliseconds busyTimeout{10000};
     bool quickCheck = true; // run PRAGMA quick_check while opening
@@ -22,9 +25,10 @@ struct OpenOptions {
 class Workbook {
 public:
     // Opens (or with createIfMissing creates) the workbook at `path`; throws WorkbookError with
-    // CannotOpen, NotAWorkbook, Corrupt, NewerSchema, NeedsUpgrade or Locked. A file refused
-    // for any of these reasons is left exactly as it was. An older schema is upgraded in place
-    // after a copy of the file is written beside it (upgradeBackupPath()).
+    // CannotOpen, NotAWorkbook (also for an existing empty file, see initializeEmptyFile), Corrupt,
+    // NewerSchema, NeedsUpgrade or Locked. A file refused for any of these reasons is left exactly
+    // as it was. An older schema is upgraded in place after a copy of the file is written beside it
+    // (upgradeBackupPath()).
     explicit Workbook(const QString& path, const OpenOptions& options = {});
     ~Workbook();
     Workbook(const Workbook&) = delete;

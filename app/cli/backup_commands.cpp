@@ -7,16 +7,21 @@
 #include "storage/workbook_error.h"
 
 #include <QDateTime>
+#include <QFileInfo>
 #include <QJsonObject>
 
 namespace mw::cli {
 namespace {
 
+QString countOfArguments(qsizetype count) {
+    return count == 1 ? QStringLiteral("1 argument") : QStringLiteral("%1 arguments").arg(count);
+}
+
 QStringList exactlyTwo(const QCommandLineParser& parser, const QString& names) {
     const QStringList positional = parser.positionalArguments();
     if (positional.size() != 2) {
         throw UsageError(
-            QStringLiteral("give %1 (got %2 arguments)").arg(names).arg(positional.size()));
+            QStringLiteral("give %1 (got %2)").arg(names, countOfArguments(positional.size())));
     }
     return positional;
 }
@@ -47,8 +52,8 @@ int runBackup(const QStringList& arguments) {
     const QStringList positional = parser.positionalArguments();
     if (automatic ? positional.size() != 1 : positional.size() != 2) {
         throw UsageError(automatic ? QStringLiteral("give WORKBOOK only with --automatic")
-                                   : QStringLiteral("give WORKBOOK and TARGET (got %1 arguments)")
-                                         .arg(positional.size()));
+                                   : QStringLiteral("give WORKBOOK and TARGET (got %1)")
+                                         .arg(countOfArguments(positional.size())));
     }
     QString written;
     try {
@@ -81,8 +86,8 @@ int runRestore(const QStringList& arguments) {
     QCommandLineParser parser;
     parser.setApplicationDescription(QStringLiteral(
         "Replaces WORKBOOK by BACKUP after checking that BACKUP opens as a sound workbook. The "
-        "replaced file is kept beside it as WORKBOOK.before-restore. Close the workbook in every "
-        "program first."));
+        "replaced file is kept beside it as WORKBOOK.before-restore (with a number added when "
+        "that name is taken). Refuses while WORKBOOK is open in any program."));
     parser.addPositionalArgument(QStringLiteral("BACKUP"), QStringLiteral("the backup to restore"));
     parser.addPositionalArgument(QStringLiteral("WORKBOOK"),
                                  QStringLiteral("the workbook file to replace"));
@@ -92,14 +97,20 @@ int runRestore(const QStringList& arguments) {
         return 0;
     }
     const QStringList positional = exactlyTwo(parser, QStringLiteral("BACKUP and WORKBOOK"));
+    storage::RestoreOutcome outcome;
     try {
-        storage::restoreWorkbook(positional.at(0), positional.at(1));
+        outcome = storage::restoreWorkbook(positional.at(0), positional.at(1));
     } catch (const storage::WorkbookError& error) {
         rethrowAsUsage(error, QStringLiteral("cannot restore %1").arg(positional.at(0)));
     }
-    printLine(QStringLiteral("restored %1 from %2; the replaced file is kept beside it "
-                             "(.before-restore)")
-                  .arg(positional.at(1), positional.at(0)));
+    if (outcome.replacedKeptAs.isEmpty()) {
+        printLine(QStringLiteral("restored %1 from %2 as a new file")
+                      .arg(positional.at(1), positional.at(0)));
+    } else {
+        printLine(QStringLiteral("restored %1 from %2; the replaced file is kept as %3")
+                      .arg(positional.at(1), positional.at(0),
+                           QFileInfo(outcome.replacedKeptAs).fileName()));
+    }
     return 0;
 }
 

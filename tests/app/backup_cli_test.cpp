@@ -1,11 +1,15 @@
 // `meterwright backup` and `meterwright restore` run as separate processes: a copy made while the
-// workbook is in use verifies sound, nothing is overwritten, and a restore keeps the old file.
+// workbook is in use verifies sound, nothing is overwritten, a restore keeps the old file and
+// says where, and a restore is refused while the workbook is open elsewhere.
 #include "support/cli_process.h"
 
 #include <catch2/catch.hpp>
 
 #include <QDir>
 #include <QFile>
+#include <QFileInfo>
+#include <QSqlDatabase>
+#include <QSqlQuery>
 #include <QTemporaryDir>
 
 using mwtest::requireUsageError;
@@ -60,7 +64,7 @@ TEST_CASE("automatic backup is written once a day into the folder beside the wor
     CHECK(QDir(workbook + QStringLiteral(".backups")).entryList(QDir::Files).size() == 1);
 }
 
-TEST_CASE("restore puts a backup back and keeps the replaced file") {
+TEST_CASE("restore puts a backup back and says where the replaced file is kept") {
     QTemporaryDir dir;
     REQUIRE(dir.isValid());
     const QString workbook = makeDemo(dir);
@@ -70,8 +74,55 @@ TEST_CASE("restore puts a backup back and keeps the replaced file") {
     const auto restored = runMeterwright({QStringLiteral("restore"), copy, workbook});
     INFO(restored.err.toStdString());
     REQUIRE(restored.exitCode == 0);
+    CHECK(restored.outText().contains(QStringLiteral("kept as shop.mwb.before-restore\n")));
     CHECK(QFile::exists(workbook + QStringLiteral(".before-restore")));
     CHECK(runMeterwright({QStringLiteral("verify"), workbook}).exitCode == 0);
+
+    // The name is taken now, so the next replaced file gets a number, and the message says so.
+    const auto again = runMeterwright({QStringLiteral("restore"), copy, workbook});
+    REQUIRE(again.exitCode == 0);
+    CHECK(again.outText().contains(QStringLiteral("kept as shop.mwb.before-restore.2\n")));
+    CHECK(QFile::exists(workbook + QStringLiteral(".before-restore.2")));
+
+    const QString fresh = dir.filePath(QStringLiteral("fresh.mwb"));
+    const auto created = runMeterwright({QStringLiteral("restore"), copy, fresh});
+    REQUIRE(created.exitCode == 0);
+    CHECK(created.outText().contains(QStringLiteral("as a new file")));
+    CHECK_FALSE(created.outText().contains(QStringLiteral("kept")));
+    CHECK(runMeterwright({QStringLiteral("verify"), fresh}).exitCode == 0);
+}
+
+TEST_CASE("restore refuses a workbook open in another program, a folder and a missing folder") {
+    QTemporaryDir dir;
+    REQUIRE(dir.isValid());
+    const QString workbook = makeDemo(dir);
+    const QString copy = dir.filePath(QStringLiteral("copy.mwb"));
+    REQUIRE(runMeterwright({QStringLiteral("backup"), workbook, copy}).exitCode == 0);
+    {
+        // This test process plays the other program: an open connection that has read the file.
+        QSqlDatabase holder =
+            QSqlDatabase::addDatabase(QStringLiteral("QSQLITE"), QStringLiteral("holder"));
+        holder.setDatabaseName(workbook);
+        REQUIRE(holder.open());
+        QSqlQuery read(holder);
+        REQUIRE(read.exec(QStringLiteral("SELECT count(*) FROM sqlite_master")));
+        REQUIRE(read.next());
+        const auto refused = requireUsageError({QStringLiteral("restore"), copy, workbook},
+                                               "is in use by another program; close it");
+        CHECK_FALSE(refused.errText().contains(QStringLiteral(".restoring")));
+        CHECK_FALSE(QFile::exists(workbook + QStringLiteral(".before-restore")));
+        read.finish();
+        holder.close();
+    }
+    QSqlDatabase::removeDatabase(QStringLiteral("holder"));
+    CHECK(runMeterwright({QStringLiteral("verify"), workbook}).exitCode == 0);
+
+    const QString folder = dir.filePath(QStringLiteral("records"));
+    REQUIRE(QDir().mkpath(folder));
+    requireUsageError({QStringLiteral("restore"), copy, folder}, "is not a file");
+    CHECK(QFileInfo(folder).isDir());
+    requireUsageError({QStringLiteral("restore"), copy, dir.filePath(QStringLiteral("no/x.mwb"))},
+                      "does not exist");
 }
 
 TEST_CASE("restore refuses a file that is not a workbook and leaves the workbook alone") {
@@ -88,5 +139,9 @@ TEST_CASE("restore refuses a file that is not a workbook and leaves the workbook
     CHECK_FALSE(QFile::exists(workbook + QStringLiteral(".before-restore")));
     CHECK(runMeterwright({QStringLiteral("verify"), workbook}).exitCode == 0);
     requireUsageError({QStringLiteral("backup")}, "give WORKBOOK and TARGET");
-    requireUsageError({QStringLiteral("restore"), junk}, "give BACKUP and WORKBOOK");
+    requireUsageError({QStringLiteral("restore"), junk},
+                      "give BACKUP and WORKBOOK (got 1 argument)");
+    requireUsageError({QStringLiteral("backup"), junk},
+                      "give WORKBOOK and TARGET (got 1 argument)");
+    requireUsageError({QStringLiteral("restore"), junk, junk, junk}, "(got 3 arguments)");
 }

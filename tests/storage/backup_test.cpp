@@ -4,11 +4,13 @@
 
 #include "storage/lab_repository.h"
 #include "storage/record_digest.h"
+#include "storage/schema.h"
 #include "storage/workbook_error.h"
 #include "tests/storage/workbook_fixture.h"
 
 #include <catch2/catch.hpp>
 
+#include <QDir>
 #include <QFile>
 #include <QFileInfo>
 #include <QTimeZone>
@@ -101,4 +103,147 @@ TEST_CASE("automatic backups are taken when due and the oldest are pruned", "[ba
     readOnly.readOnly = true;
     Workbook copy(kept[0], readOnly);
     CHECK(mw::storage::verifyWorkbook(copy).sound());
+}
+
+namespace {
+
+// Approves one session so the backup has a record in its digest chain.
+std::int64_t approveOne(Workbook& workbook) {
+    const mwtest::Seed seed = mwtest::seed(workbook);
+    mw::CalibrationSession s = mwtest::draft(seed);
+    mw::storage::SessionRepository sessions(workbook);
+    sessions.create(s);
+    sessions.submit(s.id, mwtest::at(2025, 3, 5));
+    sessions.approve(s.id, seed.reviewer.id, mwtest::at(2025, 3, 6));
+    return s.id;
+}
+
+// Turns a current workbook back into one of schema version 1, as an older Meterwright wrote
+// it: the audit log of version 2 removed and the version number set back.
+void downgradeToVersionOne(const QString& path) {
+    mwtest::dropAllTriggers(path);
+    for (const char* statement :
+         {"DROP TABLE audit_log", "DROP TABLE audit_context", "PRAGMA user_version = 1"}) {
+        REQUIRE(mwtest::rawExec(path, QString::fromLatin1(statement)).isEmpty());
+    }
+}
+
+QStringList filesIn(const QTemporaryDir& dir) {
+    return QDir(dir.path()).entryList(QDir::Files | QDir::Dirs | QDir::NoDotAndDotDot);
+}
+
+} // namespace
+
+TEST_CASE("a restore is refused while another connection has the workbook open", "[backup]") {
+    mwtest::TempWorkbook temp;
+    const QString backup = temp.dir.filePath(QStringLiteral("copy.mwb"));
+    {
+        auto original = temp.open();
+        mw::storage::backupWorkbook(*original, backup);
+    }
+    auto holder = temp.open(); // e.g. the GUI of a colleague, still writing
+    mw::storage::LabRepository(*holder).save({"Still working", "", std::nullopt});
+    const QStringList before = filesIn(temp.dir);
+    try {
+        mw::storage::restoreWorkbook(backup, temp.path());
+        FAIL("the restore should have been refused");
+    } catch (const WorkbookError& error) {
+        CHECK(error.kind() == WorkbookError::Kind::Locked);
+        CHECK(error.message().contains(QStringLiteral("is in use by another program")));
+        CHECK_FALSE(error.message().contains(QStringLiteral(".restoring")));
+    }
+    CHECK(filesIn(temp.dir) == before); // nothing moved aside, no staging file left
+    // The holder's writes still go to the workbook everyone opens.
+    mw::storage::LabRepository(*holder).save({"Later", "", std::nullopt});
+    holder.reset();
+    CHECK(mw::storage::LabRepository(*temp.open()).load()->name == "Later");
+    // Once closed everywhere, the same restore goes through.
+    const auto outcome = mw::storage::restoreWorkbook(backup, temp.path());
+    CHECK(outcome.replacedKeptAs == temp.path() + QStringLiteral(".before-restore"));
+}
+
+TEST_CASE("a restore brings along writes still in the backup's write-ahead log", "[backup]") {
+    mwtest::TempWorkbook temp;
+    temp.open().reset();
+    const QString backup = temp.dir.filePath(QStringLiteral("live-copy.mwb"));
+    mw::storage::OpenOptions create;
+    create.createIfMissing = true;
+    Workbook source(backup, create);
+    mw::storage::LabRepository(source).save({"Only in the WAL", "", std::nullopt});
+    // The write is not checkpointed while the source stays open: a plain file copy loses it.
+    REQUIRE(QFileInfo(backup + QStringLiteral("-wal")).size() > 0);
+
+    const auto outcome = mw::storage::restoreWorkbook(backup, temp.path());
+    CHECK(outcome.replacedKeptAs == temp.path() + QStringLiteral(".before-restore"));
+    Workbook restored(temp.path());
+    REQUIRE(mw::storage::LabRepository(restored).load());
+    CHECK(mw::storage::LabRepository(restored).load()->name == "Only in the WAL");
+}
+
+TEST_CASE("a restore refuses a target that is a folder or lies in a missing folder", "[backup]") {
+    mwtest::TempWorkbook temp;
+    temp.open().reset();
+    const QString folder = temp.dir.filePath(QStringLiteral("records"));
+    REQUIRE(QDir().mkpath(folder));
+    try {
+        mw::storage::restoreWorkbook(temp.path(), folder);
+        FAIL("a folder must not be replaced");
+    } catch (const WorkbookError& error) {
+        CHECK(error.kind() == WorkbookError::Kind::CannotOpen);
+        CHECK(error.message().contains(QStringLiteral("is not a file")));
+    }
+    CHECK(QFileInfo(folder).isDir());
+    CHECK_FALSE(QFileInfo::exists(folder + QStringLiteral(".before-restore")));
+
+    const QString nowhere = temp.dir.filePath(QStringLiteral("missing/lab.mwb"));
+    try {
+        mw::storage::restoreWorkbook(temp.path(), nowhere);
+        FAIL("a missing folder must be named");
+    } catch (const WorkbookError& error) {
+        CHECK(error.message().contains(QStringLiteral("folder")));
+        CHECK(error.message().contains(QStringLiteral("does not exist")));
+    }
+    // A new file in an existing folder is written and nothing is reported as replaced.
+    const QString fresh = temp.dir.filePath(QStringLiteral("fresh.mwb"));
+    CHECK(mw::storage::restoreWorkbook(temp.path(), fresh).replacedKeptAs.isEmpty());
+    CHECK(mw::storage::verifyWorkbook(Workbook(fresh)).sound());
+}
+
+TEST_CASE("an older-schema backup is upgraded in a copy and its chain checked", "[backup]") {
+    mwtest::TempWorkbook temp;
+    temp.open().reset();
+    const QString backup = temp.dir.filePath(QStringLiteral("old.mwb"));
+    std::int64_t sessionId = 0;
+    {
+        mw::storage::OpenOptions create;
+        create.createIfMissing = true;
+        Workbook old(backup, create);
+        sessionId = approveOne(old);
+    }
+    downgradeToVersionOne(backup);
+    const QByteArray backupBefore = mwtest::fileHash(backup);
+
+    SECTION("a sound older backup is restored and upgraded when opened") {
+        mw::storage::restoreWorkbook(backup, temp.path());
+        CHECK(mwtest::fileHash(backup) == backupBefore); // the check ran on a copy
+        Workbook restored(temp.path());
+        CHECK(restored.schemaVersion() == mw::storage::schema::kCurrentVersion);
+        CHECK(mw::storage::SessionRepository(restored).find(sessionId));
+    }
+    SECTION("a tampered older backup is refused") {
+        REQUIRE(mwtest::rawExec(backup, QStringLiteral("UPDATE readings SET indicated = "
+                                                       "indicated + 0.01 WHERE session_id = %1")
+                                            .arg(sessionId))
+                    .isEmpty());
+        const QByteArray target = mwtest::fileHash(temp.path());
+        try {
+            mw::storage::restoreWorkbook(backup, temp.path());
+            FAIL("a backup whose record chain does not verify must not be restored");
+        } catch (const WorkbookError& error) {
+            CHECK(error.kind() == WorkbookError::Kind::Corrupt);
+            CHECK(error.message().contains(QStringLiteral("is not sound")));
+        }
+        CHECK(mwtest::fileHash(temp.path()) == target);
+        CHECK_FALSE(QFileInfo::exists(temp.path() + QStringLiteral(".before-restore")));
+    }
 }

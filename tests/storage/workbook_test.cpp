@@ -12,6 +12,7 @@
 
 #include <QElapsedTimer>
 #include <QFile>
+#include <QFileInfo>
 
 #include <atomic>
 #include <thread>
@@ -84,6 +85,26 @@ TEST_CASE("a missing file is not created unless asked", "[workbook]") {
     CHECK(error.kind() == Kind::CannotOpen);
     CHECK(error.message().contains(QStringLiteral("does not exist")));
     CHECK_FALSE(QFile::exists(temp.path()));
+}
+
+TEST_CASE("an existing empty file is refused and left untouched unless asked to initialise it",
+          "[workbook]") {
+    mwtest::TempWorkbook temp;
+    writeFile(temp.path(), QByteArray()); // e.g. a file picked by mistake in an Open dialog
+    OpenOptions createOnly;
+    createOnly.createIfMissing = true; // creating a missing file is not permission to fill one
+    for (const OpenOptions& options : {OpenOptions{}, createOnly}) {
+        const WorkbookError error = refusal(temp.path(), options);
+        CHECK(error.kind() == Kind::NotAWorkbook);
+        CHECK(error.message() == temp.path() + QStringLiteral(" is empty; it is not a workbook"));
+        CHECK(QFileInfo(temp.path()).size() == 0);
+        CHECK_FALSE(QFile::exists(temp.path() + QStringLiteral("-wal")));
+        CHECK_FALSE(QFile::exists(temp.path() + QStringLiteral("-shm")));
+    }
+    OpenOptions initialise = createOnly;
+    initialise.initializeEmptyFile = true;
+    Workbook workbook(temp.path(), initialise);
+    CHECK(workbook.schemaVersion() == mw::storage::schema::kCurrentVersion);
 }
 
 TEST_CASE("a file that is not SQLite is refused and left untouched", "[workbook]") {
