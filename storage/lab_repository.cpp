@@ -29,18 +29,28 @@ void LabRepository::save(const Lab& lab) {
         throw WorkbookError(WorkbookError::Kind::BadInput, QStringLiteral("the lab needs a name"));
     }
     Transaction transaction(workbook_);
-    // Portable upsert (SQLite 3.24+, PostgreSQL 9.5+).
-    QSqlQuery query = sql::prepare(
+    // Update the one row, or insert it the first time. Not an upsert: the database refuses any
+    // insert over an existing key, so that no row can ever be replaced behind the audit log.
+    const QVariant accreditation = lab.accreditation_id
+                                       ? QVariant(QString::fromStdString(*lab.accreditation_id))
+                                       : QVariant(QMetaType(QMetaType::QString));
+    QSqlQuery update = sql::prepare(
         workbook_.database(),
-        QStringLiteral("INSERT INTO lab (id, name, address, accreditation_id) VALUES (1, ?, ?, ?) "
-                       "ON CONFLICT (id) DO UPDATE SET name = excluded.name, address = "
-                       "excluded.address, accreditation_id = excluded.accreditation_id"));
-    query.addBindValue(QString::fromStdString(lab.name));
-    query.addBindValue(QString::fromStdString(lab.address));
-    query.addBindValue(lab.accreditation_id
-                           ? QVariant(QString::fromStdString(*lab.accreditation_id))
-                           : QVariant(QMetaType(QMetaType::QString)));
-    sql::exec(query, QStringLiteral("saving the lab identity"));
+        QStringLiteral("UPDATE lab SET name = ?, address = ?, accreditation_id = ? WHERE id = 1"));
+    update.addBindValue(QString::fromStdString(lab.name));
+    update.addBindValue(QString::fromStdString(lab.address));
+    update.addBindValue(accreditation);
+    sql::exec(update, QStringLiteral("saving the lab identity"));
+    if (update.numRowsAffected() == 0) {
+        QSqlQuery insert = sql::prepare(
+            workbook_.database(),
+            QStringLiteral(
+                "INSERT INTO lab (id, name, address, accreditation_id) VALUES (1, ?, ?, ?)"));
+        insert.addBindValue(QString::fromStdString(lab.name));
+        insert.addBindValue(QString::fromStdString(lab.address));
+        insert.addBindValue(accreditation);
+        sql::exec(insert, QStringLiteral("saving the lab identity"));
+    }
     transaction.commit();
 }
 

@@ -205,18 +205,48 @@ std::vector<ChainRow> chainRows(const QSqlDatabase& db) {
     return rows;
 }
 
+// The sessions that chained amendments supersede. An amendment later amended in turn is
+// superseded itself, yet still supersedes the record it corrected.
+std::set<std::int64_t>
+supersededByChain(const std::map<std::int64_t, CalibrationSession>& chained) {
+    std::set<std::int64_t> ids;
+    for (const auto& [id, s] : chained) {
+        if (s.supersedes_id &&
+            (s.state == SessionState::Approved || s.state == SessionState::Superseded)) {
+            ids.insert(*s.supersedes_id);
+        }
+    }
+    return ids;
+}
+
+// The state is not covered by the digest (a superseded record keeps it), so it is checked
+// against the chain itself: with the triggers dropped, an approved record could otherwise be
+// marked superseded (and drop out of the due list) or the reverse, unnoticed.
+std::optional<QString> stateFlip(const CalibrationSession& s, bool amended) {
+    if (amended && s.state != SessionState::Superseded) {
+        return QStringLiteral(": an approved amendment supersedes it, yet it is marked \"%1\"")
+            .arg(sql::enumText(s.state));
+    }
+    if (!amended && s.state == SessionState::Superseded) {
+        return QStringLiteral(": it is marked superseded, but no approved amendment in the chain "
+                              "supersedes it");
+    }
+    return std::nullopt;
+}
+
 // The first complaint about the chain itself, or nullopt when every link holds.
-std::optional<std::pair<std::int64_t, QString>> checkChain(const QSqlDatabase& db,
-                                                           VerificationReport& report) {
+std::optional<std::pair<std::int64_t, QString>>
+checkChain(const QSqlDatabase& db, const std::vector<ChainRow>& rows, VerificationReport& report) {
     const RecordContexts contexts(db);
     std::map<std::int64_t, CalibrationSession> sessions;
     for (CalibrationSession& s : detail::loadSessions(
              db, QStringLiteral("s.id IN (SELECT session_id FROM record_chain)"), QVariant())) {
         sessions.emplace(s.id, std::move(s));
     }
+    const std::set<std::int64_t> supersededIds = supersededByChain(sessions);
     QString previous;
     int position = 0;
-    for (const ChainRow& row : chainRows(db)) {
+    for (const ChainRow& row : rows) {
         ++position;
         const auto found = sessions.find(row.sessionId);
         if (found == sessions.end()) {
@@ -235,6 +265,9 @@ std::optional<std::pair<std::int64_t, QString>> checkChain(const QSqlDatabase& d
         if (s.state != SessionState::Approved && s.state != SessionState::Superseded) {
             return std::pair(s.id, who + QStringLiteral(": its state was changed to \"%1\"")
                                              .arg(sql::enumText(s.state)));
+        }
+        if (const auto flip = stateFlip(s, supersededIds.count(s.id) > 0)) {
+            return std::pair(s.id, who + *flip);
         }
         if (chainDigest(row.previous, canonicalRecord(s, contexts.of(s))) != row.digest) {
             return std::pair(s.id, who + QStringLiteral(": its contents no longer match the "
@@ -265,12 +298,19 @@ QString chainDigest(const QString& previousDigest, const QByteArray& canonical) 
     return QString::fromLatin1(hash.result().toHex());
 }
 
+QString shortDigest(const QString& digest) {
+    return digest.left(16);
+}
+
 VerificationReport verifyWorkbook(const Workbook& workbook) {
     const QSqlDatabase db = workbook.database();
     VerificationReport report;
     report.integrityMessage = dialect::integrityCheck(db);
     report.integrityOk = report.integrityMessage == QLatin1String("ok");
-    if (auto problem = checkChain(db, report)) {
+    const std::vector<ChainRow> rows = chainRows(db);
+    report.chainLength = int(rows.size());
+    report.chainHeadDigest = rows.empty() ? QString() : rows.back().digest;
+    if (auto problem = checkChain(db, rows, report)) {
         report.firstMismatchSessionId = problem->first;
         report.firstMismatch = problem->second;
     }

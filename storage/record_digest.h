@@ -35,12 +35,20 @@ struct VerificationReport {
     // revision 1, approved 2024-03-05T10:00:00Z): contents changed since approval".
     std::optional<QString> firstMismatch;
     std::optional<std::int64_t> firstMismatchSessionId;
+    // The chain head, to compare with a copy kept elsewhere: a chain cut back or rebuilt
+    // inside the file still verifies, but its head no longer matches the copy.
+    int chainLength = 0;     // entries in the chain
+    QString chainHeadDigest; // digest of the last entry ("" when the chain is empty)
 
     bool sound() const { return integrityOk && !firstMismatch; }
 };
 
-// Recomputes every digest in approval order and checks each link of the chain, and that every
-// approved or superseded session has its entry. Reads only.
+// Recomputes every digest in approval order and checks each link of the chain, that every
+// approved or superseded session has its entry, and that a chained record is superseded exactly
+// when a chained amendment supersedes it. Reads only.
 VerificationReport verifyWorkbook(const Workbook& workbook);
+
+// The short form of a digest shown to people: its first 16 hex digits.
+QString shortDigest(const QString& digest);
 
 } // namespace mw::storage

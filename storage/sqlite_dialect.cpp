@@ -423,6 +423,7 @@ void createIntegrityTriggers(const QSqlDatabase& db) {
     createRecordTriggers(db);
     createStandardCopyTriggers(db);
     createConformityTriggers(db);
+    createRecordKeyTriggers(db);
 }
 
 void createAuditTriggers(const QSqlDatabase& db) {
@@ -435,6 +436,7 @@ void createAuditTriggers(const QSqlDatabase& db) {
                                "append-only'); END")
                     .arg(QString::fromLatin1(event).toLower(), QLatin1String(event)));
     }
+    createAuditKeyTriggers(db);
 }
 
 } // namespace mw::storage::dialect

@@ -47,5 +47,12 @@ void vacuumInto(const QSqlDatabase& db, const QString& targetPath);
 void createIntegrityTriggers(const QSqlDatabase& db);
 // Audit triggers of schema version 2 on every table that holds records.
 void createAuditTriggers(const QSqlDatabase& db);
+// The triggers refusing a write that would replace a row by its key (INSERT OR REPLACE,
+// UPDATE OR REPLACE), in sqlite_dialect_keys.cpp: those of the record tables (created with the
+// version 1 rules) and of the audit tables (version 2). createKeyTriggers adds any missing ones
+// to a workbook made before they existed, and is harmless to repeat.
+void createRecordKeyTriggers(const QSqlDatabase& db);
+void createAuditKeyTriggers(const QSqlDatabase& db);
+void createKeyTriggers(const QSqlDatabase& db);
 
 } // namespace mw::storage::dialect

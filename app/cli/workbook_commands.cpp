@@ -32,6 +32,9 @@ void printReport(const storage::VerificationReport& report, const QString& path,
             {QStringLiteral("integrity_check"), report.integrityMessage},
             {QStringLiteral("records_checked"), report.recordsChecked},
             {QStringLiteral("sessions_checked"), report.sessionsChecked},
+            {QStringLiteral("chain_head"),
+             QJsonObject{{QStringLiteral("records"), report.chainLength},
+                         {QStringLiteral("digest"), report.chainHeadDigest}}},
         };
         if (report.firstMismatch) {
             object.insert(QStringLiteral("first_mismatch"), *report.firstMismatch);
@@ -46,6 +49,11 @@ void printReport(const storage::VerificationReport& report, const QString& path,
     printLine(QStringLiteral("calibration sessions looked at: %1").arg(report.sessionsChecked));
     printLine(QStringLiteral("approved records whose digest was recomputed and matched: %1")
                   .arg(report.recordsChecked));
+    // Compared with a copy kept elsewhere, the head shows a chain cut back or rebuilt.
+    printLine(QStringLiteral("chain head: %1 records, last digest %2")
+                  .arg(report.chainLength)
+                  .arg(report.chainLength == 0 ? QStringLiteral("(none)")
+                                               : storage::shortDigest(report.chainHeadDigest)));
     if (report.firstMismatch) {
         printLine(QStringLiteral("FIRST MISMATCH: %1").arg(*report.firstMismatch));
     }

@@ -122,6 +122,9 @@ TEST_CASE("verify: a sound workbook exits 0 and says what was checked", "[verify
     CHECK(run.outText().contains(QStringLiteral("integrity check: ok")));
     CHECK(run.outText().contains(QStringLiteral("recomputed and matched: 2")));
     CHECK(run.outText().contains(QStringLiteral("result: sound")));
+    // The chain head, in the short form people copy: 16 hex digits.
+    CHECK(run.outText().contains(
+        QRegularExpression(QStringLiteral("chain head: 2 records, last digest [0-9a-f]{16}\n"))));
     CHECK(run.err.isEmpty());
 }
 
@@ -137,6 +140,12 @@ TEST_CASE("verify: an edit behind the app's back exits 1 naming the record", "[v
     const QJsonObject report = QJsonDocument::fromJson(run.out).object();
     CHECK_FALSE(report.value(QStringLiteral("sound")).toBool());
     CHECK(report.value(QStringLiteral("records_checked")).toInt() == 1);
+    // The head is reported in full even when a record no longer matches.
+    const QJsonObject head = report.value(QStringLiteral("chain_head")).toObject();
+    CHECK(head.value(QStringLiteral("records")).toInt() == 2);
+    CHECK(QRegularExpression(QStringLiteral("^[0-9a-f]{64}$"))
+              .match(head.value(QStringLiteral("digest")).toString())
+              .hasMatch());
     CHECK(report.value(QStringLiteral("first_mismatch_session")).toInteger() == second);
     CHECK(report.value(QStringLiteral("first_mismatch"))
               .toString()

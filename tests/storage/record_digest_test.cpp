@@ -115,6 +115,84 @@ TEST_CASE("a sound workbook verifies", "[digest]") {
     CHECK(report.recordsChecked == 3);
     CHECK(report.sessionsChecked == 4);
     CHECK_FALSE(report.firstMismatch);
+    // The head is the last entry of the chain, in full; people compare its first 16 digits.
+    QSqlQuery last(workbook->database());
+    REQUIRE(last.exec(QStringLiteral("SELECT digest FROM record_chain ORDER BY id DESC")));
+    REQUIRE(last.next());
+    CHECK(report.chainLength == 3);
+    CHECK(report.chainHeadDigest == last.value(0).toString());
+    CHECK(mw::storage::shortDigest(report.chainHeadDigest) == last.value(0).toString().left(16));
+}
+
+TEST_CASE("an empty workbook has an empty chain head", "[digest]") {
+    mwtest::TempWorkbook temp;
+    auto workbook = temp.open();
+    const auto report = verifyWorkbook(*workbook);
+    CHECK(report.sound());
+    CHECK(report.chainLength == 0);
+    CHECK(report.chainHeadDigest.isEmpty());
+}
+
+TEST_CASE("a record is superseded exactly when an approved amendment supersedes it", "[digest]") {
+    mwtest::TempWorkbook temp;
+    std::vector<std::int64_t> ids;
+    std::int64_t amendmentId = 0;
+    {
+        auto workbook = temp.open();
+        const mwtest::Seed seed = mwtest::seed(*workbook);
+        ids = approveThree(*workbook, seed);
+        mw::storage::SessionRepository sessions(*workbook);
+        amendmentId =
+            sessions.amend(ids[0], seed.technician.id, QStringLiteral("Transcription error at 6 V"),
+                           mwtest::at(2025, 2, 20));
+        sessions.submit(amendmentId, mwtest::at(2025, 2, 20, 14));
+        sessions.approve(amendmentId, seed.reviewer.id, mwtest::at(2025, 2, 20, 16));
+        const auto report = verifyWorkbook(*workbook);
+        REQUIRE(report.sound());
+        CHECK(report.chainLength == 4);
+    }
+    // With the triggers in place the flip is refused; someone drops them first.
+    const QString flip = QStringLiteral("UPDATE calibration_sessions SET state = 'superseded' "
+                                        "WHERE id = %1")
+                             .arg(ids[1]);
+    REQUIRE_FALSE(mwtest::rawExec(temp.path(), flip).isEmpty());
+    mwtest::dropAllTriggers(temp.path());
+
+    SECTION("an approved record marked superseded with no amendment") {
+        REQUIRE(mwtest::rawExec(temp.path(), flip).isEmpty());
+        mw::storage::Workbook workbook(temp.path());
+        const auto report = verifyWorkbook(workbook);
+        CHECK_FALSE(report.sound());
+        CHECK(report.firstMismatchSessionId == ids[1]);
+        REQUIRE(report.firstMismatch);
+        CHECK(report.firstMismatch->startsWith(QStringLiteral("record 2 (session %1").arg(ids[1])));
+        CHECK(report.firstMismatch->contains(QStringLiteral("no approved amendment")));
+    }
+    SECTION("a superseded record set back to approved") {
+        REQUIRE(mwtest::rawExec(temp.path(), QStringLiteral("UPDATE calibration_sessions SET "
+                                                            "state = 'approved' WHERE id = %1")
+                                                 .arg(ids[0]))
+                    .isEmpty());
+        mw::storage::Workbook workbook(temp.path());
+        const auto report = verifyWorkbook(workbook);
+        CHECK(report.firstMismatchSessionId == ids[0]);
+        REQUIRE(report.firstMismatch);
+        CHECK(report.firstMismatch->contains(QStringLiteral("an approved amendment supersedes "
+                                                            "it, yet it is marked \"approved\"")));
+    }
+    SECTION("the amendment's link to the record it corrects removed") {
+        REQUIRE(mwtest::rawExec(temp.path(), QStringLiteral("UPDATE calibration_sessions SET "
+                                                            "supersedes_id = NULL, revision = 1 "
+                                                            "WHERE id = %1")
+                                                 .arg(amendmentId))
+                    .isEmpty());
+        mw::storage::Workbook workbook(temp.path());
+        const auto report = verifyWorkbook(workbook);
+        // The superseded original is named first: nothing in the chain supersedes it any more.
+        CHECK(report.firstMismatchSessionId == ids[0]);
+        REQUIRE(report.firstMismatch);
+        CHECK(report.firstMismatch->contains(QStringLiteral("no approved amendment")));
+    }
 }
 
 TEST_CASE("an edit behind the app's back names the first record that no longer matches",
@@ -153,6 +231,16 @@ TEST_CASE("an edit behind the app's back names the first record that no longer m
         const auto report = verifyWorkbook(workbook);
         CHECK(report.firstMismatchSessionId == ids[2]);
         CHECK(report.firstMismatch->contains(QStringLiteral("state was changed")));
+    }
+    SECTION("an approved record flipped to superseded") {
+        REQUIRE(mwtest::rawExec(temp.path(), QStringLiteral("UPDATE calibration_sessions SET "
+                                                            "state = 'superseded' WHERE id = %1")
+                                                 .arg(ids[0]))
+                    .isEmpty());
+        mw::storage::Workbook workbook(temp.path());
+        const auto report = verifyWorkbook(workbook);
+        CHECK(report.firstMismatchSessionId == ids[0]);
+        CHECK(report.firstMismatch->contains(QStringLiteral("marked superseded")));
     }
     SECTION("a record removed from the chain") {
         REQUIRE(mwtest::rawExec(temp.path(), QStringLiteral("DELETE FROM record_chain WHERE "

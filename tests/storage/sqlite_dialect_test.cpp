@@ -47,7 +47,26 @@ struct Records {
     }
     // Runs the statement and returns the error (empty when SQLite accepted it).
     QString attempt(const char* statement) const { return sql(arg(QString::fromUtf8(statement))); }
+    // The first column of the first row of a query, read on its own connection.
+    QString value(const char* query) const {
+        const QString name = QStringLiteral("value-connection");
+        QString result;
+        {
+            QSqlDatabase db = QSqlDatabase::addDatabase(QStringLiteral("QSQLITE"), name);
+            db.setDatabaseName(temp.path());
+            REQUIRE(db.open());
+            QSqlQuery q(db);
+            REQUIRE(q.exec(arg(QString::fromUtf8(query))));
+            REQUIRE(q.next());
+            result = q.value(0).toString();
+            db.close();
+        }
+        QSqlDatabase::removeDatabase(name);
+        return result;
+    }
 };
+
+const QString kNeverReplaced = QStringLiteral("rows are never replaced");
 
 } // namespace
 
@@ -369,4 +388,195 @@ TEST_CASE("an instrument without approved records may still be corrected", "[int
     CHECK(rawExec(temp.path(), QStringLiteral("UPDATE instrument_ranges SET full_scale = 20 "
                                               "WHERE label = '10 V'"))
               .isEmpty());
+}
+
+// REPLACE conflict resolution deletes the row holding the key without firing DELETE triggers
+// (recursive_triggers is off, as in any sqlite3 shell), so each form is refused before it runs.
+TEST_CASE("INSERT OR REPLACE cannot swap out a record's row", "[integrity]") {
+    Records r;
+    SECTION("an approved session re-inserted as a draft") {
+        CHECK(r.attempt("INSERT OR REPLACE INTO calibration_sessions (id, instrument_id, "
+                        "technician_id, started_at, ambient_celsius, relative_humidity_percent, "
+                        "method, decision_rule, guard_factor, state, return_comment, revision, "
+                        "amendment_reason) SELECT id, instrument_id, technician_id, started_at, "
+                        "ambient_celsius, relative_humidity_percent, method, decision_rule, "
+                        "guard_factor, 'draft', '', 1, '' FROM calibration_sessions WHERE id = "
+                        "{approved}")
+                  .contains(QStringLiteral(
+                      "calibration_sessions: a row with this calibration_sessions.id")));
+        CHECK(r.value("SELECT state FROM calibration_sessions WHERE id = {approved}") ==
+              QStringLiteral("approved"));
+    }
+    SECTION("a signer renamed by id or by login") {
+        CHECK(r.attempt("INSERT OR REPLACE INTO users (id, login, full_name, role, active, "
+                        "password_hash) VALUES ({reviewer}, 'rory', 'Someone Else', 'reviewer', "
+                        "1, '$argon2id$x')")
+                  .contains(QStringLiteral("users: a row with this")));
+        CHECK(r.attempt("INSERT OR REPLACE INTO users (login, full_name, role, active, "
+                        "password_hash) VALUES ('rory', 'Someone Else', 'reviewer', 1, "
+                        "'$argon2id$x')")
+                  .contains(QStringLiteral("a row with this users.login")));
+        CHECK(r.value("SELECT full_name FROM users WHERE id = {reviewer}") ==
+              QStringLiteral("Rory Review"));
+        CHECK(r.value("SELECT count(*) FROM users") == QStringLiteral("3"));
+    }
+    SECTION("the lab identity replaced instead of updated") {
+        CHECK(r.attempt("INSERT INTO lab (id, name, address) SELECT 1, 'Bench Lab', 'Street 1' "
+                        "WHERE NOT EXISTS (SELECT 1 FROM lab)")
+                  .isEmpty());
+        const QString name = r.value("SELECT name FROM lab");
+        CHECK(r.attempt("INSERT OR REPLACE INTO lab (id, name, address) VALUES (1, 'Other', "
+                        "'Elsewhere')")
+                  .contains(QStringLiteral("lab: a row with this lab.id")));
+        CHECK(r.value("SELECT name FROM lab") == name);
+    }
+    SECTION("a digest of the chain swapped") {
+        const QString digest = r.value("SELECT digest FROM record_chain");
+        CHECK(r.attempt("INSERT OR REPLACE INTO record_chain (id, session_id, previous_digest, "
+                        "digest, recorded_at) SELECT id, session_id, previous_digest, "
+                        "printf('%064d', 0), recorded_at FROM record_chain WHERE session_id = "
+                        "{approved}")
+                  .contains(kNeverReplaced));
+        CHECK(r.value("SELECT digest FROM record_chain") == digest);
+    }
+    SECTION("an audit entry overwritten") {
+        const QString count = r.value("SELECT count(*) FROM audit_log");
+        const QString first = r.value("SELECT table_name || action FROM audit_log ORDER BY id");
+        CHECK(r.attempt("INSERT OR REPLACE INTO audit_log (id, at, table_name, row_id, action) "
+                        "VALUES ((SELECT min(id) FROM audit_log), '2025-01-01T00:00:00Z', "
+                        "'lab', 1, 'update')")
+                  .contains(QStringLiteral("a row with this audit_log.id")));
+        CHECK(r.value("SELECT count(*) FROM audit_log") == count);
+        CHECK(r.value("SELECT table_name || action FROM audit_log ORDER BY id") == first);
+        CHECK(r.attempt("INSERT OR REPLACE INTO audit_context (id, user_id) VALUES (1, "
+                        "{reviewer})")
+                  .contains(kNeverReplaced));
+    }
+    SECTION("a reading of an approved session") {
+        const QString sum = r.value("SELECT sum(indicated) FROM readings WHERE session_id = "
+                                    "{approved}");
+        CHECK(r.attempt("INSERT OR REPLACE INTO readings SELECT session_id, range_id, "
+                        "point_index, direction, phase, repeat_number, unit, applied, indicated "
+                        "+ 1 FROM readings WHERE session_id = {approved} LIMIT 1")
+                  .contains(QStringLiteral("readings: the calibration session is submitted or "
+                                           "approved")));
+        CHECK(r.value("SELECT sum(indicated) FROM readings WHERE session_id = {approved}") == sum);
+    }
+    SECTION("a standard row of an approved session taken over by a draft") {
+        CHECK(r.attempt("INSERT OR REPLACE INTO session_standards (id, session_id, standard_id, "
+                        "certificate_number, due_date, overdue_justification) SELECT id, "
+                        "{draft}, standard_id, certificate_number, due_date, '' FROM "
+                        "session_standards WHERE session_id = {approved}")
+                  .contains(kNeverReplaced));
+        CHECK(r.value("SELECT count(*) FROM session_standards WHERE session_id = {approved}") ==
+              QStringLiteral("1"));
+    }
+    SECTION("a resistor check and a note of an approved session") {
+        CHECK(r.attempt("INSERT OR REPLACE INTO resistor_checks (id, session_id, range_id, "
+                        "component, computed_ohms, measured_ohms, tolerance_percent) SELECT id, "
+                        "{draft}, range_id, 'R9', 1, 1, 1 FROM resistor_checks WHERE session_id "
+                        "= {approved}")
+                  .contains(QStringLiteral("a row with this resistor_checks.id")));
+        CHECK(r.attempt("INSERT OR REPLACE INTO adjustment_notes (id, session_id, noted_at, "
+                        "note_text) SELECT id, {draft}, noted_at, 'x' FROM adjustment_notes "
+                        "WHERE session_id = {approved}")
+                  .contains(QStringLiteral("a row with this adjustment_notes.id")));
+        CHECK(r.value("SELECT count(*) FROM resistor_checks WHERE session_id = {approved}") ==
+              QStringLiteral("1"));
+        CHECK(r.value("SELECT count(*) FROM adjustment_notes WHERE session_id = {approved}") ==
+              QStringLiteral("1"));
+    }
+    SECTION("an instrument, its range or a standard re-registered under its key") {
+        CHECK(r.attempt("INSERT OR REPLACE INTO instruments SELECT id, 'VM-NEW', description, "
+                        "manufacturer, model, serial, kind, movement_amps_fs, movement_ohms, "
+                        "scale_type, scale_divisions, 5, interval_days, location, owner, status "
+                        "FROM instruments WHERE id = {instrument}")
+                  .contains(QStringLiteral("a row with this instruments.id")));
+        CHECK(r.attempt("INSERT OR REPLACE INTO instrument_ranges (instrument_id, sort_order, "
+                        "label, unit, lower_limit, full_scale) VALUES ({instrument}, 0, '10 V', "
+                        "'V', 0, 20)")
+                  .contains(QStringLiteral("instrument_ranges: a row with this "
+                                           "instrument_ranges.instrument_id, "
+                                           "instrument_ranges.label")));
+        CHECK(r.attempt("INSERT OR REPLACE INTO reference_standards (asset_tag, description, "
+                        "certificate_number, due_date) VALUES ('STD-01', 'x', 'CERT-X', "
+                        "'2099-01-01')")
+                  .contains(QStringLiteral(
+                      "reference_standards: a row with this reference_standards.asset_tag")));
+        CHECK(r.value("SELECT accuracy_class FROM instruments") == QStringLiteral("1.5"));
+        CHECK(r.value("SELECT full_scale FROM instrument_ranges WHERE id = {range}") ==
+              QStringLiteral("10"));
+    }
+}
+
+TEST_CASE("UPDATE OR REPLACE cannot move a key onto another row", "[integrity]") {
+    Records r;
+    SECTION("a draft's standard row renumbered onto an approved session's") {
+        CHECK(r.attempt("UPDATE OR REPLACE session_standards SET id = (SELECT id FROM "
+                        "session_standards WHERE session_id = {approved}) WHERE session_id = "
+                        "{draft}")
+                  .contains(QStringLiteral("a row with this session_standards.id")));
+        CHECK(r.value("SELECT count(*) FROM session_standards WHERE session_id = {approved}") ==
+              QStringLiteral("1"));
+    }
+    SECTION("a user's login moved onto a signer's") {
+        REQUIRE(r.attempt("INSERT INTO users (login, full_name, role, active, password_hash) "
+                          "VALUES ('tom', 'Tom', 'technician', 1, '$argon2id$x')")
+                    .isEmpty());
+        CHECK(r.attempt("UPDATE OR REPLACE users SET login = 'rory' WHERE login = 'tom'")
+                  .contains(QStringLiteral("a row with this users.login")));
+        CHECK(r.attempt("UPDATE OR REPLACE users SET id = {reviewer} WHERE login = 'tom'")
+                  .contains(QStringLiteral("a row with this users.id")));
+        CHECK(r.value("SELECT count(*) FROM users") == QStringLiteral("4"));
+    }
+    SECTION("a draft session renumbered onto an approved one") {
+        CHECK(r.attempt("UPDATE OR REPLACE calibration_sessions SET id = {approved} WHERE id = "
+                        "{draft}")
+                  .contains(QStringLiteral("calibration_sessions:")));
+        CHECK(r.value("SELECT state FROM calibration_sessions WHERE id = {approved}") ==
+              QStringLiteral("approved"));
+    }
+    SECTION("a draft's reading moved onto another reading of the draft") {
+        const QString count = r.value("SELECT count(*) FROM readings WHERE session_id = {draft}");
+        CHECK(r.attempt("UPDATE OR REPLACE readings SET direction = 'down' WHERE session_id = "
+                        "{draft} AND direction = 'up'")
+                  .contains(QStringLiteral("readings: a reading with this key")));
+        CHECK(r.value("SELECT count(*) FROM readings WHERE session_id = {draft}") == count);
+    }
+    SECTION("an edit that keeps the keys, and an upsert of a draft's reading, still work") {
+        CHECK(r.attempt("UPDATE users SET login = login, active = 1 WHERE id = {tech}").isEmpty());
+        CHECK(r.attempt("UPDATE instruments SET location = 'Shelf 4', asset_tag = asset_tag")
+                  .isEmpty());
+        CHECK(r.attempt("INSERT INTO readings (session_id, range_id, point_index, direction, "
+                        "phase, repeat_number, unit, applied, indicated) VALUES ({draft}, "
+                        "{range}, 0, 'up', 'as-found', 1, 'V', 2, 2.5) ON CONFLICT (session_id, "
+                        "range_id, point_index, direction, phase, repeat_number) DO UPDATE SET "
+                        "indicated = excluded.indicated")
+                  .isEmpty());
+        CHECK(r.value("SELECT indicated FROM readings WHERE session_id = {draft} AND "
+                      "point_index = 0 AND direction = 'up'") == QStringLiteral("2.5"));
+    }
+}
+
+TEST_CASE("the key triggers can be added to a workbook made without them", "[integrity]") {
+    Records r;
+    REQUIRE(r.sql(QStringLiteral("DROP TRIGGER users_login_kept_on_insert")).isEmpty());
+    REQUIRE(r.attempt("INSERT OR REPLACE INTO users (login, full_name, role, active, "
+                      "password_hash) VALUES ('tom', 'Tom', 'technician', 1, '$argon2id$x')")
+                .isEmpty());
+    // Without the trigger the row is silently swapped.
+    REQUIRE(r.attempt("INSERT OR REPLACE INTO users (login, full_name, role, active, "
+                      "password_hash) VALUES ('tom', 'Tom', 'technician', 1, '$argon2id$x')")
+                .isEmpty());
+    REQUIRE(r.value("SELECT count(*) FROM users WHERE login = 'tom'") == QStringLiteral("1"));
+    {
+        mw::storage::Workbook workbook(r.temp.path());
+        // Repeating it is harmless: the triggers already there are kept.
+        mw::storage::dialect::createKeyTriggers(workbook.database());
+        mw::storage::dialect::createKeyTriggers(workbook.database());
+    }
+    CHECK(r.attempt("INSERT OR REPLACE INTO users (login, full_name, role, active, "
+                    "password_hash) VALUES ('tom', 'Thomas', 'technician', 1, '$argon2id$x')")
+              .contains(QStringLiteral("a row with this users.login")));
+    CHECK(r.value("SELECT full_name FROM users WHERE login = 'tom'") == QStringLiteral("Tom"));
 }
