@@ -143,8 +143,8 @@ TEST_CASE("a record is superseded exactly when an approved amendment supersedes 
         ids = approveThree(*workbook, seed);
         mw::storage::SessionRepository sessions(*workbook);
         amendmentId =
-            sessions.amend(ids[0], seed.technician.id, QStringLiteral("Transcription error at 6 V"),
-                           mwtest::at(2025, 2, 20));
+            sessions.amend(ids[0], seed.technician.id,
+                           QStringLiteral("Value copied wrongly at 6 V"), mwtest::at(2025, 2, 20));
         sessions.submit(amendmentId, mwtest::at(2025, 2, 20, 14));
         sessions.approve(amendmentId, seed.reviewer.id, mwtest::at(2025, 2, 20, 16));
         const auto report = verifyWorkbook(*workbook);
