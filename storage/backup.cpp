@@ -1,9 +1,9 @@
 // Backups: VACUUM INTO copies on demand and on a schedule, and restoring one.
 #include "storage/backup.h"
 
-#include "storage/record_digest.h"
 #include "storage/sql_support.h"
 #include "storage/sqlite_dialect.h"
+#include "storage/verification.h"
 #include "storage/workbook.h"
 #include "storage/workbook_error.h"
 

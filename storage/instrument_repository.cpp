@@ -65,6 +65,10 @@ void bindRange(QSqlQuery& q, const RangeSpec& r, int order, const QString& conte
     q.addBindValue(r.full_scale);
     q.addBindValue(sql::nullableReal(r.nominal_ohms));
     q.addBindValue(sql::nullableReal(r.fiducial_value));
+    q.addBindValue(r.signal ? QVariant(sql::enumText(*r.signal))
+                            : QVariant(QMetaType(QMetaType::QString)));
+    q.addBindValue(r.diode ? QVariant(sql::text(presetName(*r.diode)))
+                           : QVariant(QMetaType(QMetaType::QString)));
 }
 
 void saveRanges(const QSqlDatabase& db, Instrument& instrument) {
@@ -96,12 +100,12 @@ void saveRanges(const QSqlDatabase& db, Instrument& instrument) {
         QSqlQuery q = sql::prepare(
             db, r.id == 0 ? QStringLiteral("INSERT INTO instrument_ranges (sort_order, label, "
                                            "unit, lower_limit, full_scale, nominal_ohms, "
-                                           "fiducial_value, instrument_id) VALUES "
-                                           "(?, ?, ?, ?, ?, ?, ?, ?) RETURNING id")
+                                           "fiducial_value, signal, diode, instrument_id) VALUES "
+                                           "(?, ?, ?, ?, ?, ?, ?, ?, ?, ?) RETURNING id")
                           : QStringLiteral("UPDATE instrument_ranges SET sort_order = ?, label = "
                                            "?, unit = ?, lower_limit = ?, full_scale = ?, "
-                                           "nominal_ohms = ?, fiducial_value = ? WHERE "
-                                           "instrument_id = ? AND id = ?"));
+                                           "nominal_ohms = ?, fiducial_value = ?, signal = ?, "
+                                           "diode = ? WHERE instrument_id = ? AND id = ?"));
         bindRange(q, r, order++, context);
         q.addBindValue(qint64(instrument.id));
         if (r.id != 0) {

@@ -9,14 +9,13 @@ QString selectInstruments() {
     return QStringLiteral(
         "SELECT id, asset_tag, description, manufacturer, model, serial, kind, movement_amps_fs, "
         "movement_ohms, scale_type, scale_divisions, accuracy_class, interval_days, location, "
-        "owner, "
-        "status FROM instruments ");
+        "owner, status FROM instruments ");
 }
 
 QString selectRanges() {
     return QStringLiteral(
         "SELECT id, instrument_id, label, unit, lower_limit, full_scale, nominal_ohms, "
-        "fiducial_value FROM instrument_ranges ");
+        "fiducial_value, signal, diode FROM instrument_ranges ");
 }
 
 Instrument instrumentFrom(const QSqlQuery& q) {
@@ -51,6 +50,20 @@ RangeSpec rangeFrom(const QSqlQuery& q) {
     }
     if (!q.value(7).isNull()) {
         r.fiducial_value = q.value(7).toDouble();
+    }
+    r.signal =
+        q.value(8).isNull()
+            ? std::nullopt
+            : std::optional(sql::enumFrom<SignalType>(q.value(8), "instrument_ranges.signal"));
+    if (!q.value(9).isNull()) {
+        const auto diode = presetFromName(sql::toStd(q.value(9)));
+        if (!diode) {
+            throw WorkbookError(WorkbookError::Kind::Corrupt,
+                                QStringLiteral("unknown value \"%1\" in column "
+                                               "instrument_ranges.diode")
+                                    .arg(q.value(9).toString()));
+        }
+        r.diode = diode;
     }
     return r;
 }

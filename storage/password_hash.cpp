@@ -1,9 +1,9 @@
 // Argon2id password hashes through libsodium's crypto_pwhash_str family.
 #include "storage/password_hash.h"
 
-#include <sodium.h>
+#include "storage/workbook_error.h"
 
-#include <stdexcept>
+#include <sodium.h>
 
 namespace mw::storage {
 namespace {
@@ -11,7 +11,8 @@ namespace {
 void ensureSodium() {
     static const int status = sodium_init(); // 0 first time, 1 when already initialised
     if (status < 0) {
-        throw std::runtime_error("libsodium could not be initialised");
+        throw WorkbookError(WorkbookError::Kind::Internal,
+                            QStringLiteral("libsodium could not be initialised"));
     }
 }
 
@@ -26,7 +27,9 @@ QByteArray hashPassword(const QString& password) {
     char out[crypto_pwhash_STRBYTES];
     if (crypto_pwhash_str_alg(out, utf8.constData(), static_cast<unsigned long long>(utf8.size()),
                               kOpsLimit, kMemLimit, crypto_pwhash_ALG_ARGON2ID13) != 0) {
-        throw std::runtime_error("hashing a password failed: not enough memory for Argon2id");
+        throw WorkbookError(WorkbookError::Kind::Internal,
+                            QStringLiteral("hashing a password failed: not enough memory for "
+                                           "Argon2id"));
     }
     return QByteArray(out);
 }

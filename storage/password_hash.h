@@ -8,8 +8,8 @@ namespace mw::storage {
 
 // Argon2id13, opslimit = crypto_pwhash_OPSLIMIT_INTERACTIVE (2 passes), memlimit =
 // crypto_pwhash_MEMLIMIT_INTERACTIVE (64 MiB), random 16-byte salt; the result is the
-// self-describing "$argon2id$v=19$m=65536,t=2,p=1$..." string. Throws std::runtime_error
-// when libsodium cannot allocate the memory.
+// self-describing "$argon2id$v=19$m=65536,t=2,p=1$..." string. Throws WorkbookError
+// (Internal) when libsodium cannot be initialised or cannot allocate the memory.
 QByteArray hashPassword(const QString& password);
 
 // Constant-time check of `password` against a stored hash string.

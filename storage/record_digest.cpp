@@ -1,11 +1,14 @@
 // Canonical text of an approved record, the SHA-256 chain, and its verification.
 //
 // The text holds everything the conformity decision rests on: the session and its rows, the
-// instrument as specified (class, scale, movement, the ranges used) and who signed. Per-point
-// errors and verdicts are not written: core/evaluation computes them as a pure function of the
-// readings and that specification, so digesting the inputs covers them. The range's nominal
-// multiplier or shunt is left out on purpose: an adjustment may change it after approval, and
-// the record's resistor checks hold what was actually measured.
+// instrument as specified (class, scale, movement, the ranges used), who signed, and (format 2)
+// the evaluation settings and the copies of the standards' specifications and of each range
+// (signal type, diode model, fitted resistor, divisions, reference chosen) the session was
+// sealed with. Per-point errors and verdicts are not written: the session evaluator computes
+// them as a pure function of those inputs, so digesting the inputs covers them, and verify
+// recomputes the verdict to compare it with the stored outcome. The register's current
+// resistor of a range is left out on purpose: an adjustment may change it after approval; the
+// record's copy and its resistor checks hold what applied.
 #include "storage/record_digest.h"
 
 #include "storage/session_loader.h"
@@ -74,7 +77,8 @@ private:
 };
 
 void writeHeader(Writer& w, const CalibrationSession& s) {
-    w.line("format", "meterwright-record 1");
+    w.line("format", s.record_format == kRecordFormatWithoutInputs ? "meterwright-record 1"
+                                                                   : "meterwright-record 2");
     w.line("session", std::to_string(s.id));
     w.line("instrument", std::to_string(s.instrument_id));
     w.line("technician", std::to_string(s.technician_id));
@@ -179,104 +183,56 @@ void writeParts(Writer& w, const CalibrationSession& s) {
     }
 }
 
-QString describe(int position, const CalibrationSession& s) {
-    return QStringLiteral("record %1 (session %2, instrument %3, revision %4, approved %5)")
-        .arg(position)
-        .arg(s.id)
-        .arg(s.instrument_id)
-        .arg(s.revision)
-        .arg(QString::fromStdString(stamp(s.approved_at)));
+std::string optionalNumber(const std::optional<double>& value) {
+    return value ? number(*value) : std::string("-");
 }
 
-struct ChainRow {
-    std::int64_t sessionId = 0;
-    QString previous;
-    QString digest;
-};
-
-std::vector<ChainRow> chainRows(const QSqlDatabase& db) {
-    QSqlQuery q = sql::prepare(db, QStringLiteral("SELECT session_id, previous_digest, digest "
-                                                  "FROM record_chain ORDER BY id"));
-    sql::exec(q, QStringLiteral("reading the chain of approved records"));
-    std::vector<ChainRow> rows;
-    while (q.next()) {
-        rows.push_back({q.value(0).toLongLong(), q.value(1).toString(), q.value(2).toString()});
-    }
-    return rows;
+std::string refText(const std::optional<SpecRef>& ref) {
+    return ref ? std::to_string(ref->standard_id) + '|' + std::to_string(ref->sort_order)
+               : std::string("-|-");
 }
 
-// The sessions that chained amendments supersede. An amendment later amended in turn is
-// superseded itself, yet still supersedes the record it corrected.
-std::set<std::int64_t>
-supersededByChain(const std::map<std::int64_t, CalibrationSession>& chained) {
-    std::set<std::int64_t> ids;
-    for (const auto& [id, s] : chained) {
-        if (s.supersedes_id &&
-            (s.state == SessionState::Approved || s.state == SessionState::Superseded)) {
-            ids.insert(*s.supersedes_id);
-        }
+// Format 2: the settings and the copies the verdict was computed from.
+void writeSealed(Writer& w, const CalibrationSession& s) {
+    const EvaluationSettings settings = s.settings.value_or(EvaluationSettings{});
+    w.line("settings", s.settings ? number(settings.readability_fraction) + '|' +
+                                        number(settings.coverage_probability) + '|' +
+                                        number(settings.reference_celsius)
+                                  : std::string("-"));
+    const SealedInputs sealed = s.sealed.value_or(SealedInputs{});
+    std::vector<std::string> lines;
+    for (const StandardSpecCopy& c : sealed.specs) {
+        const StandardRangeSpec& spec = c.spec;
+        lines.push_back(
+            std::to_string(c.standard_id) + '|' + std::to_string(c.sort_order) + '|' +
+            escaped(spec.label) + '|' + std::string(unitSymbol(spec.unit)) + '|' +
+            std::string(toText(spec.signal)) + '|' + number(spec.full_scale) + '|' +
+            number(spec.percent_of_reading) + '|' + number(spec.percent_of_range) + '|' +
+            number(spec.floor) + '|' + optionalNumber(spec.certificate_expanded_uncertainty) + '|' +
+            number(spec.coverage_factor) + '|' + optionalNumber(spec.degrees_of_freedom));
     }
-    return ids;
-}
-
-// The state is not covered by the digest (a superseded record keeps it), so it is checked
-// against the chain itself: with the triggers dropped, an approved record could otherwise be
-// marked superseded (and drop out of the due list) or the reverse, unnoticed.
-std::optional<QString> stateFlip(const CalibrationSession& s, bool amended) {
-    if (amended && s.state != SessionState::Superseded) {
-        return QStringLiteral(": an approved amendment supersedes it, yet it is marked \"%1\"")
-            .arg(sql::enumText(s.state));
+    std::sort(lines.begin(), lines.end());
+    for (const std::string& l : lines) {
+        w.line("spec_copy", l);
     }
-    if (!amended && s.state == SessionState::Superseded) {
-        return QStringLiteral(": it is marked superseded, but no approved amendment in the chain "
-                              "supersedes it");
+    lines.clear();
+    for (const RangeAsUsed& r : sealed.ranges) {
+        std::string diode = "-";
+        if (r.diode) {
+            const DiodeParameters& d = *r.diode;
+            diode = number(d.saturation_current_a) + ',' + number(d.emission_coefficient) + ',' +
+                    number(d.series_ohms) + ',' + number(d.nominal_celsius) + ',' +
+                    number(d.bandgap_ev) + ',' + number(d.saturation_temp_exponent);
+        }
+        lines.push_back(std::to_string(r.range_id) + '|' + std::string(toText(r.signal)) + '|' +
+                        diode + '|' + optionalNumber(r.resistor_ohms) + '|' +
+                        std::to_string(r.divisions) + '|' + refText(r.reference) + '|' +
+                        refText(r.reference_shunt));
     }
-    return std::nullopt;
-}
-
-// The first complaint about the chain itself, or nullopt when every link holds.
-std::optional<std::pair<std::int64_t, QString>>
-checkChain(const QSqlDatabase& db, const std::vector<ChainRow>& rows, VerificationReport& report) {
-    const RecordContexts contexts(db);
-    std::map<std::int64_t, CalibrationSession> sessions;
-    for (CalibrationSession& s : detail::loadSessions(
-             db, QStringLiteral("s.id IN (SELECT session_id FROM record_chain)"), QVariant())) {
-        sessions.emplace(s.id, std::move(s));
+    std::sort(lines.begin(), lines.end());
+    for (const std::string& l : lines) {
+        w.line("range_copy", l);
     }
-    const std::set<std::int64_t> supersededIds = supersededByChain(sessions);
-    QString previous;
-    int position = 0;
-    for (const ChainRow& row : rows) {
-        ++position;
-        const auto found = sessions.find(row.sessionId);
-        if (found == sessions.end()) {
-            return std::pair(row.sessionId, QStringLiteral("record %1 (session %2): the session "
-                                                           "is missing")
-                                                .arg(position)
-                                                .arg(row.sessionId));
-        }
-        const CalibrationSession& s = found->second;
-        const QString who = describe(position, s);
-        if (row.previous != previous) {
-            return std::pair(s.id, who + QStringLiteral(": the link to the previous record is "
-                                                        "broken (a record was removed or "
-                                                        "replaced)"));
-        }
-        if (s.state != SessionState::Approved && s.state != SessionState::Superseded) {
-            return std::pair(s.id, who + QStringLiteral(": its state was changed to \"%1\"")
-                                             .arg(sql::enumText(s.state)));
-        }
-        if (const auto flip = stateFlip(s, supersededIds.count(s.id) > 0)) {
-            return std::pair(s.id, who + *flip);
-        }
-        if (chainDigest(row.previous, canonicalRecord(s, contexts.of(s))) != row.digest) {
-            return std::pair(s.id, who + QStringLiteral(": its contents no longer match the "
-                                                        "digest taken at approval"));
-        }
-        ++report.recordsChecked;
-        previous = row.digest;
-    }
-    return std::nullopt;
 }
 
 } // namespace
@@ -286,6 +242,9 @@ QByteArray canonicalRecord(const CalibrationSession& session, const RecordContex
     writeHeader(writer, session);
     writeContext(writer, session, context);
     writeParts(writer, session);
+    if (session.record_format != kRecordFormatWithoutInputs) {
+        writeSealed(writer, session);
+    }
     const std::string text = writer.take();
     return QByteArray(text.data(), qsizetype(text.size()));
 }
@@ -300,38 +259,6 @@ QString chainDigest(const QString& previousDigest, const QByteArray& canonical) 
 
 QString shortDigest(const QString& digest) {
     return digest.left(16);
-}
-
-VerificationReport verifyWorkbook(const Workbook& workbook) {
-    const QSqlDatabase db = workbook.database();
-    VerificationReport report;
-    report.integrityMessage = dialect::integrityCheck(db);
-    report.integrityOk = report.integrityMessage == QLatin1String("ok");
-    const std::vector<ChainRow> rows = chainRows(db);
-    report.chainLength = int(rows.size());
-    report.chainHeadDigest = rows.empty() ? QString() : rows.back().digest;
-    if (auto problem = checkChain(db, rows, report)) {
-        report.firstMismatchSessionId = problem->first;
-        report.firstMismatch = problem->second;
-    }
-    QSqlQuery q = sql::prepare(db, QStringLiteral("SELECT s.id, s.state, c.id FROM "
-                                                  "calibration_sessions s LEFT JOIN record_chain "
-                                                  "c ON c.session_id = s.id ORDER BY s.id"));
-    sql::exec(q, QStringLiteral("listing calibration sessions"));
-    while (q.next()) {
-        ++report.sessionsChecked;
-        const QString state = q.value(1).toString();
-        const bool sealed = !q.value(2).isNull();
-        if (!report.firstMismatch && !sealed &&
-            (state == QLatin1String("approved") || state == QLatin1String("superseded"))) {
-            report.firstMismatchSessionId = q.value(0).toLongLong();
-            report.firstMismatch = QStringLiteral("session %1 is marked %2 but was never sealed "
-                                                  "into the chain of approved records")
-                                       .arg(q.value(0).toLongLong())
-                                       .arg(state);
-        }
-    }
-    return report;
 }
 
 } // namespace mw::storage

@@ -37,6 +37,13 @@ CalibrationSession sessionFrom(const QSqlQuery& q) {
     s.amendment_reason = sql::toStd(q.value(19));
     s.amended_at = sql::optionalTimestamp(q.value(20));
     s.digest = sql::toStd(q.value(21));
+    s.record_format = q.value(25).toInt();
+    if (q.value(22).isNull() || q.value(23).isNull() || q.value(24).isNull()) {
+        s.settings.reset(); // a record sealed before the settings were recorded
+    } else {
+        s.settings = EvaluationSettings{q.value(22).toDouble(), q.value(23).toDouble(),
+                                        q.value(24).toDouble()};
+    }
     return s;
 }
 
@@ -49,11 +56,15 @@ void forEachPart(const QSqlDatabase& db, const QString& columns, const QString& 
                  const QString& condition, const QVariant& value, const Index& index, Take take) {
     // Rows come in the order they were entered; readings, which have no id, in the order of a
     // test plan (range, point, up before down, as-found before as-left, repeat).
-    const QString order =
-        table == QLatin1String("readings")
-            ? QStringLiteral("range_id, point_index, CASE direction WHEN 'up' THEN 0 ELSE 1 END, "
-                             "phase, repeat_number")
-            : QStringLiteral("id");
+    QString order = QStringLiteral("id");
+    if (table == QLatin1String("readings")) {
+        order = QStringLiteral("range_id, point_index, CASE direction WHEN 'up' THEN 0 ELSE 1 "
+                               "END, phase, repeat_number");
+    } else if (table == QLatin1String("session_standard_specs")) {
+        order = QStringLiteral("standard_id, sort_order");
+    } else if (table == QLatin1String("session_ranges")) {
+        order = QStringLiteral("range_id");
+    }
     QSqlQuery q = sql::prepare(
         db, QStringLiteral("SELECT session_id, %1 FROM %2 WHERE session_id IN (SELECT s.id FROM "
                            "calibration_sessions s WHERE %3) ORDER BY session_id, %4")
@@ -67,6 +78,76 @@ void forEachPart(const QSqlDatabase& db, const QString& columns, const QString& 
             take(*at->second, q);
         }
     }
+}
+
+std::optional<double> optionalReal(const QVariant& value) {
+    return value.isNull() ? std::nullopt : std::optional(value.toDouble());
+}
+
+std::optional<SpecRef> optionalRef(const QVariant& standard, const QVariant& position) {
+    if (standard.isNull()) {
+        return std::nullopt;
+    }
+    return SpecRef{standard.toLongLong(), position.toInt()};
+}
+
+SealedInputs& sealedOf(CalibrationSession& s) {
+    if (!s.sealed) {
+        s.sealed = SealedInputs{};
+    }
+    return *s.sealed;
+}
+
+// The copies a session was submitted with (an amendment has those of the record it amends from
+// the start). A session without any has `sealed` left empty.
+void loadSealedParts(const QSqlDatabase& db, const QString& condition, const QVariant& value,
+                     const Index& index) {
+    forEachPart(db,
+                QStringLiteral("standard_id, sort_order, label, unit, signal, full_scale, "
+                               "percent_of_reading, percent_of_range, floor_value, "
+                               "certificate_expanded_uncertainty, coverage_factor, "
+                               "certificate_dof"),
+                QStringLiteral("session_standard_specs"), condition, value, index,
+                [](CalibrationSession& s, const QSqlQuery& q) {
+                    StandardSpecCopy copy;
+                    copy.standard_id = q.value(1).toLongLong();
+                    copy.sort_order = q.value(2).toInt();
+                    copy.spec.label = sql::toStd(q.value(3));
+                    copy.spec.unit = sql::unitFrom(q.value(4));
+                    copy.spec.signal =
+                        sql::enumFrom<SignalKind>(q.value(5), "session_standard_specs.signal");
+                    copy.spec.full_scale = q.value(6).toDouble();
+                    copy.spec.percent_of_reading = q.value(7).toDouble();
+                    copy.spec.percent_of_range = q.value(8).toDouble();
+                    copy.spec.floor = q.value(9).toDouble();
+                    copy.spec.certificate_expanded_uncertainty = optionalReal(q.value(10));
+                    copy.spec.coverage_factor = q.value(11).toDouble();
+                    copy.spec.degrees_of_freedom = optionalReal(q.value(12));
+                    sealedOf(s).specs.push_back(std::move(copy));
+                });
+    forEachPart(db,
+                QStringLiteral("range_id, signal, diode_saturation_amps, "
+                               "diode_emission_coefficient, diode_series_ohms, "
+                               "diode_nominal_celsius, diode_bandgap_ev, "
+                               "diode_saturation_exponent, resistor_ohms, divisions, "
+                               "reference_standard_id, reference_sort_order, shunt_standard_id, "
+                               "shunt_sort_order"),
+                QStringLiteral("session_ranges"), condition, value, index,
+                [](CalibrationSession& s, const QSqlQuery& q) {
+                    RangeAsUsed range;
+                    range.range_id = q.value(1).toLongLong();
+                    range.signal = sql::enumFrom<SignalType>(q.value(2), "session_ranges.signal");
+                    if (!q.value(3).isNull()) {
+                        range.diode = DiodeParameters{q.value(3).toDouble(), q.value(4).toDouble(),
+                                                      q.value(5).toDouble(), q.value(6).toDouble(),
+                                                      q.value(7).toDouble(), q.value(8).toDouble()};
+                    }
+                    range.resistor_ohms = optionalReal(q.value(9));
+                    range.divisions = q.value(10).toInt();
+                    range.reference = optionalRef(q.value(11), q.value(12));
+                    range.reference_shunt = optionalRef(q.value(13), q.value(14));
+                    sealedOf(s).ranges.push_back(range);
+                });
 }
 
 void loadParts(const QSqlDatabase& db, const QString& condition, const QVariant& value,
@@ -109,6 +190,7 @@ void loadParts(const QSqlDatabase& db, const QString& condition, const QVariant&
         value, index, [](CalibrationSession& s, const QSqlQuery& q) {
             s.adjustments.push_back({sql::timestampFrom(q.value(1)), sql::toStd(q.value(2))});
         });
+    loadSealedParts(db, condition, value, index);
 }
 
 } // namespace
@@ -121,7 +203,9 @@ std::vector<CalibrationSession> loadSessions(const QSqlDatabase& db, const QStri
                            "s.method, s.decision_rule, s.guard_factor, s.outcome, s.state, "
                            "s.submitted_at, s.return_comment, s.returned_at, s.reviewer_id, "
                            "s.approved_at, s.revision, s.supersedes_id, s.amendment_reason, "
-                           "s.amended_at, c.digest FROM calibration_sessions s LEFT JOIN "
+                           "s.amended_at, c.digest, s.readability_fraction, "
+                           "s.coverage_probability, s.reference_celsius, s.record_format FROM "
+                           "calibration_sessions s LEFT JOIN "
                            "record_chain c ON c.session_id = s.id WHERE %1 ORDER BY "
                            "s.started_at, s.id")
                 .arg(condition));

@@ -21,6 +21,9 @@ void insertResistorCheck(const QSqlDatabase& db, std::int64_t sessionId,
                          const ResistorCheck& check);
 void insertAdjustmentNote(const QSqlDatabase& db, std::int64_t sessionId,
                           const AdjustmentNote& note);
+// The copies a session is sealed with: replaces any it holds.
+void replaceSealedInputs(const QSqlDatabase& db, std::int64_t sessionId,
+                         const SealedInputs& inputs);
 // NotFound naming the session when an UPDATE or DELETE touched no row.
 void requireOneRow(const QSqlQuery& query, std::int64_t sessionId);
 

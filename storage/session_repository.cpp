@@ -12,25 +12,29 @@ namespace {
 
 using Kind = WorkbookError::Kind;
 
+// The settings of a session that has none (a record of format 1 reopened) are the defaults.
 void bindDetails(QSqlQuery& q, const CalibrationSession& s) {
+    const EvaluationSettings settings = s.settings.value_or(EvaluationSettings{});
     q.addBindValue(sql::nullableTime(s.finished_at));
     q.addBindValue(s.environment.ambient_celsius);
     q.addBindValue(s.environment.relative_humidity_percent);
     q.addBindValue(QString::fromStdString(s.method));
     q.addBindValue(sql::enumText(s.decision_rule));
     q.addBindValue(s.guard_factor);
-    q.addBindValue(s.outcome ? QVariant(sql::enumText(*s.outcome))
-                             : QVariant(QMetaType(QMetaType::QString)));
+    q.addBindValue(settings.readability_fraction);
+    q.addBindValue(settings.coverage_probability);
+    q.addBindValue(settings.reference_celsius);
 }
 
 std::int64_t insertHeader(const QSqlDatabase& db, const CalibrationSession& s) {
     QSqlQuery q = sql::prepare(
         db, QStringLiteral("INSERT INTO calibration_sessions (finished_at, ambient_celsius, "
                            "relative_humidity_percent, method, decision_rule, guard_factor, "
-                           "outcome, instrument_id, technician_id, started_at, state, "
-                           "return_comment, revision, supersedes_id, amendment_reason, "
-                           "amended_at) VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, ?, 'draft', '', ?, "
-                           "?, ?, ?) RETURNING id"));
+                           "readability_fraction, coverage_probability, reference_celsius, "
+                           "instrument_id, technician_id, started_at, state, return_comment, "
+                           "revision, supersedes_id, amendment_reason, amended_at, "
+                           "record_format) VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, 'draft', "
+                           "'', ?, ?, ?, ?, ?) RETURNING id"));
     bindDetails(q, s);
     q.addBindValue(qint64(s.instrument_id));
     q.addBindValue(qint64(s.technician_id));
@@ -39,6 +43,7 @@ std::int64_t insertHeader(const QSqlDatabase& db, const CalibrationSession& s) {
     q.addBindValue(sql::nullableId(s.supersedes_id));
     q.addBindValue(QString::fromStdString(s.amendment_reason));
     q.addBindValue(sql::nullableTime(s.amended_at));
+    q.addBindValue(kRecordFormat);
     sql::exec(
         q, QStringLiteral("creating a calibration session of instrument %1").arg(s.instrument_id));
     q.next();
@@ -55,6 +60,12 @@ void SessionRepository::create(CalibrationSession& session) {
                             QStringLiteral("a new calibration session is a draft; submit and "
                                            "approve it through the workflow"));
     }
+    if (session.outcome) {
+        throw WorkbookError(Kind::BadInput,
+                            QStringLiteral("a new calibration session has no outcome: the "
+                                           "outcome is computed from its readings when it is "
+                                           "submitted"));
+    }
     const QSqlDatabase db = workbook_.database();
     Transaction transaction(workbook_);
     const std::int64_t id = insertHeader(db, session);
@@ -66,6 +77,9 @@ void SessionRepository::create(CalibrationSession& session) {
     for (const AdjustmentNote& note : session.adjustments) {
         detail::insertAdjustmentNote(db, id, note);
     }
+    if (session.sealed) {
+        detail::replaceSealedInputs(db, id, *session.sealed);
+    }
     transaction.commit();
     session.id = id;
 }
@@ -76,7 +90,8 @@ void SessionRepository::updateDetails(const CalibrationSession& session) {
         workbook_.database(),
         QStringLiteral("UPDATE calibration_sessions SET finished_at = ?, ambient_celsius = ?, "
                        "relative_humidity_percent = ?, method = ?, decision_rule = ?, "
-                       "guard_factor = ?, outcome = ? WHERE id = ?"));
+                       "guard_factor = ?, readability_fraction = ?, coverage_probability = ?, "
+                       "reference_celsius = ? WHERE id = ?"));
     bindDetails(q, session);
     q.addBindValue(qint64(session.id));
     sql::exec(q, QStringLiteral("saving calibration session %1").arg(session.id));
@@ -87,11 +102,39 @@ void SessionRepository::updateDetails(const CalibrationSession& session) {
 void SessionRepository::setStandards(std::int64_t sessionId, std::vector<StandardUse> standards) {
     const QSqlDatabase db = workbook_.database();
     Transaction transaction(workbook_);
-    QSqlQuery del =
-        sql::prepare(db, QStringLiteral("DELETE FROM session_standards WHERE session_id = ?"));
-    del.addBindValue(qint64(sessionId));
-    sql::exec(del, QStringLiteral("replacing the standards of session %1").arg(sessionId));
-    detail::insertStandards(db, sessionId, standards);
+    QStringList kept;
+    for (const StandardUse& use : standards) {
+        kept << QString::number(use.standard_id);
+    }
+    const QString keptList = kept.isEmpty() ? QStringLiteral("NULL") : kept.join(QLatin1Char(','));
+    // Range copies naming a standard no longer used go first (they refer to its copies).
+    QSqlQuery ranges = sql::prepare(
+        db, QStringLiteral("DELETE FROM session_ranges WHERE session_id = ? AND "
+                           "(reference_standard_id NOT IN (%1) OR shunt_standard_id NOT IN (%1))")
+                .arg(keptList));
+    ranges.addBindValue(qint64(sessionId));
+    sql::exec(ranges, QStringLiteral("changing the standards of session %1").arg(sessionId));
+    QSqlQuery removed = sql::prepare(
+        db, QStringLiteral("DELETE FROM session_standards WHERE session_id = ? AND standard_id "
+                           "NOT IN (%1)")
+                .arg(keptList));
+    removed.addBindValue(qint64(sessionId));
+    sql::exec(removed, QStringLiteral("changing the standards of session %1").arg(sessionId));
+    QSqlQuery justify = sql::prepare(
+        db, QStringLiteral("UPDATE session_standards SET overdue_justification = ? WHERE "
+                           "session_id = ? AND standard_id = ?"));
+    std::vector<StandardUse> added;
+    for (const StandardUse& use : standards) {
+        justify.addBindValue(QString::fromStdString(use.overdue_justification));
+        justify.addBindValue(qint64(sessionId));
+        justify.addBindValue(qint64(use.standard_id));
+        sql::exec(justify,
+                  QStringLiteral("recording why standard %1 is used").arg(use.standard_id));
+        if (justify.numRowsAffected() == 0) {
+            added.push_back(use);
+        }
+    }
+    detail::insertStandards(db, sessionId, added);
     transaction.commit();
 }
 

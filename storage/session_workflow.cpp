@@ -1,10 +1,13 @@
 // The review workflow of calibration sessions: submit, return, reopen, approve (sealing the
 // record into the digest chain) and amend.
+#include "core/evaluation/session_evaluation.h"
+#include "storage/instrument_repository.h"
 #include "storage/record_digest.h"
 #include "storage/session_loader.h"
 #include "storage/session_parts.h"
 #include "storage/session_repository.h"
 #include "storage/sql_support.h"
+#include "storage/standard_repository.h"
 #include "storage/transaction.h"
 #include "storage/workbook.h"
 
@@ -41,16 +44,98 @@ CalibrationSession loadOne(const QSqlDatabase& db, std::int64_t sessionId) {
 
 } // namespace
 
-void SessionRepository::submit(std::int64_t sessionId, Timestamp at) {
+Instrument SessionRepository::instrumentOf(const CalibrationSession& session) const {
+    auto instrument = InstrumentRepository(workbook_).find(session.instrument_id);
+    if (!instrument) {
+        throw WorkbookError(Kind::NotFound, QStringLiteral("calibration session %1 refers to "
+                                                           "instrument %2, which does not exist")
+                                                .arg(session.id)
+                                                .arg(session.instrument_id));
+    }
+    return *instrument;
+}
+
+// A session notes each standard's certificate when the standard is chosen; a standard
+// recalibrated since then is used under its new certificate, so it must be chosen again.
+void SessionRepository::requireCurrentCertificates(
+    const CalibrationSession& session, const std::vector<ReferenceStandard>& standards) const {
+    for (const StandardUse& use : session.standards) {
+        for (const ReferenceStandard& standard : standards) {
+            if (standard.id == use.standard_id &&
+                standard.certificate_number != use.certificate_number) {
+                throw WorkbookError(
+                    Kind::RuleViolation,
+                    QStringLiteral("reference standard %1 was recalibrated after it was chosen "
+                                   "for calibration session %2 (certificate %3, now %4); choose "
+                                   "it again so the record names the certificate in force")
+                        .arg(QString::fromStdString(standard.asset_tag))
+                        .arg(session.id)
+                        .arg(QString::fromStdString(use.certificate_number),
+                             QString::fromStdString(standard.certificate_number)));
+            }
+        }
+    }
+}
+
+// The session evaluator's overall outcome, or RuleViolation saying why there is none.
+Outcome SessionRepository::outcomeOf(const Instrument& instrument,
+                                     const CalibrationSession& session, const QString& action) {
+    const SessionEvaluation evaluation =
+        evaluateSession(instrument, session, session.sealed.value_or(SealedInputs{}));
+    if (evaluation.overall) {
+        return *evaluation.overall;
+    }
+    QString why = evaluation.problems.empty() ? QStringLiteral("it has no readings")
+                                              : QString::fromStdString(evaluation.problems.front());
+    if (evaluation.problems.size() > 1) {
+        why += QStringLiteral(" (and %1 more)").arg(evaluation.problems.size() - 1);
+    }
+    throw WorkbookError(Kind::RuleViolation, QStringLiteral("cannot %1 calibration session %2: %3")
+                                                 .arg(action)
+                                                 .arg(session.id)
+                                                 .arg(why));
+}
+
+Outcome SessionRepository::submit(std::int64_t sessionId, Timestamp at) {
+    const QSqlDatabase db = workbook_.database();
     Transaction transaction(workbook_);
-    QSqlQuery q = sql::prepare(workbook_.database(),
-                               QStringLiteral("UPDATE calibration_sessions SET state = "
-                                              "'submitted', submitted_at = ? WHERE id = ?"));
+    CalibrationSession session = loadOne(db, sessionId);
+    if (session.state != SessionState::Draft && session.state != SessionState::Returned) {
+        throw WorkbookError(Kind::RuleViolation,
+                            QStringLiteral("calibration session %1 is %2; only a draft or a "
+                                           "returned session can be submitted")
+                                .arg(sessionId)
+                                .arg(sql::enumText(session.state)));
+    }
+    const Instrument instrument = instrumentOf(session);
+    const std::vector<ReferenceStandard> standards = StandardRepository(workbook_).all();
+    const bool amendment = session.supersedes_id.has_value();
+    if (!amendment) {
+        requireCurrentCertificates(session, standards);
+    }
+    const SealedInputs inputs =
+        sealInputs(instrument, session, standards, amendment ? session.sealed : std::nullopt);
+    detail::replaceSealedInputs(db, sessionId, inputs);
+    session.sealed = inputs;
+    const Outcome outcome = outcomeOf(instrument, session, QStringLiteral("submit"));
+    QSqlQuery q = sql::prepare(
+        db, QStringLiteral("UPDATE calibration_sessions SET state = 'submitted', submitted_at = "
+                           "?, outcome = ?, record_format = ?, readability_fraction = "
+                           "COALESCE(readability_fraction, ?), coverage_probability = "
+                           "COALESCE(coverage_probability, ?), reference_celsius = "
+                           "COALESCE(reference_celsius, ?) WHERE id = ?"));
+    const EvaluationSettings defaults;
     q.addBindValue(sql::toIso(at));
+    q.addBindValue(sql::enumText(outcome));
+    q.addBindValue(kRecordFormat);
+    q.addBindValue(defaults.readability_fraction);
+    q.addBindValue(defaults.coverage_probability);
+    q.addBindValue(defaults.reference_celsius);
     q.addBindValue(qint64(sessionId));
     sql::exec(q, QStringLiteral("submitting calibration session %1").arg(sessionId));
     detail::requireOneRow(q, sessionId);
     transaction.commit();
+    return outcome;
 }
 
 void SessionRepository::returnToTechnician(std::int64_t sessionId, std::int64_t reviewerId,
@@ -72,9 +157,18 @@ void SessionRepository::returnToTechnician(std::int64_t sessionId, std::int64_t 
 
 void SessionRepository::reopen(std::int64_t sessionId) {
     Transaction transaction(workbook_);
-    QSqlQuery q = sql::prepare(workbook_.database(),
-                               QStringLiteral("UPDATE calibration_sessions SET state = 'draft' "
-                                              "WHERE id = ? AND state = 'returned'"));
+    const QSqlDatabase db = workbook_.database();
+    const EvaluationSettings defaults;
+    QSqlQuery q = sql::prepare(
+        db, QStringLiteral("UPDATE calibration_sessions SET state = 'draft', outcome = NULL, "
+                           "record_format = ?, readability_fraction = "
+                           "COALESCE(readability_fraction, ?), coverage_probability = "
+                           "COALESCE(coverage_probability, ?), reference_celsius = "
+                           "COALESCE(reference_celsius, ?) WHERE id = ? AND state = 'returned'"));
+    q.addBindValue(kRecordFormat);
+    q.addBindValue(defaults.readability_fraction);
+    q.addBindValue(defaults.coverage_probability);
+    q.addBindValue(defaults.reference_celsius);
     q.addBindValue(qint64(sessionId));
     sql::exec(q, QStringLiteral("reopening calibration session %1").arg(sessionId));
     if (q.numRowsAffected() != 1) {
@@ -82,12 +176,54 @@ void SessionRepository::reopen(std::int64_t sessionId) {
             Kind::RuleViolation,
             QStringLiteral("calibration session %1 is not a returned session").arg(sessionId));
     }
+    // The copies of a plain session are taken again at its next submission.
+    QSqlQuery copies = sql::prepare(db, QStringLiteral("SELECT supersedes_id FROM "
+                                                       "calibration_sessions WHERE id = ?"));
+    copies.addBindValue(qint64(sessionId));
+    sql::exec(copies, QStringLiteral("reopening calibration session %1").arg(sessionId));
+    if (copies.next() && copies.value(0).isNull()) {
+        copies.finish();
+        detail::replaceSealedInputs(db, sessionId, SealedInputs{});
+    }
     transaction.commit();
+}
+
+// What the reviewer approves is what the technician submitted: the evaluator, run again on the
+// sealed copies, must give the outcome stored at submission.
+void SessionRepository::requireUnchangedOutcome(const CalibrationSession& session) const {
+    if (session.state != SessionState::Submitted) {
+        throw WorkbookError(Kind::RuleViolation,
+                            QStringLiteral("calibration session %1 is %2; only a submitted "
+                                           "session can be approved")
+                                .arg(session.id)
+                                .arg(sql::enumText(session.state)));
+    }
+    if (session.record_format < kRecordFormat) {
+        throw WorkbookError(Kind::RuleViolation,
+                            QStringLiteral("calibration session %1 was submitted before the "
+                                           "workbook kept a copy of the inputs its verdict rests "
+                                           "on; return it to the technician to be submitted "
+                                           "again")
+                                .arg(session.id));
+    }
+    const Outcome now = outcomeOf(instrumentOf(session), session, QStringLiteral("approve"));
+    if (!session.outcome || *session.outcome != now) {
+        throw WorkbookError(
+            Kind::RuleViolation,
+            QStringLiteral("cannot approve calibration session %1: its readings and sealed "
+                           "inputs now give \"%2\", not the \"%3\" it was submitted with; "
+                           "something changed since submission, so return it to be checked")
+                .arg(session.id)
+                .arg(sql::text(displayName(now)), session.outcome
+                                                      ? sql::text(displayName(*session.outcome))
+                                                      : QStringLiteral("no outcome")));
+    }
 }
 
 QString SessionRepository::approve(std::int64_t sessionId, std::int64_t reviewerId, Timestamp at) {
     const QSqlDatabase db = workbook_.database();
     Transaction transaction(workbook_, Transaction::Durability::Full);
+    requireUnchangedOutcome(loadOne(db, sessionId));
     QSqlQuery q = sql::prepare(db, QStringLiteral("UPDATE calibration_sessions SET state = "
                                                   "'approved', reviewer_id = ?, approved_at = ? "
                                                   "WHERE id = ?"));
@@ -144,6 +280,11 @@ std::int64_t SessionRepository::amend(std::int64_t approvedSessionId, std::int64
     revision.amendment_reason = reason.toStdString();
     revision.amended_at = at;
     revision.digest.clear();
+    revision.outcome.reset();
+    revision.record_format = kRecordFormat;
+    if (!revision.settings) {
+        revision.settings = EvaluationSettings{};
+    }
     create(revision); // joins this transaction
     transaction.commit();
     return revision.id;

@@ -30,7 +30,8 @@ void execText(const QSqlDatabase& db, const QString& text, const QString& contex
 // Runs a one-value query ("SELECT COUNT(*) ...") and returns that value.
 QVariant scalar(const QSqlDatabase& db, const QString& text, const QString& context);
 
-// Timestamps as ISO 8601 UTC text "2024-03-05T10:00:00Z": they sort as they compare.
+// Timestamps as ISO 8601 UTC text "2024-03-05T10:00:00+00:00" (the form Qt writes for a UTC
+// time, kept since the first workbook): they sort as they compare.
 QString toIso(Timestamp at);
 Timestamp timestampFrom(const QVariant& value);
 QVariant nullableTime(const std::optional<Timestamp>& at);

@@ -1,12 +1,13 @@
-// Every SQLite-only statement of the workbook in one place: pragmas, BEGIN IMMEDIATE,
-// VACUUM INTO, and the triggers (RAISE syntax) that enforce integrity and write the audit log.
-// A PostgreSQL back end would replace this file and keep the rest of storage/.
+// SQLite-only statements of the workbook: pragmas, BEGIN IMMEDIATE, checks, VACUUM INTO. The
+// triggers (RAISE syntax) are in sqlite_triggers.h. A PostgreSQL back end would replace these
+// files and keep the rest of storage/.
 #pragma once
 
 #include <QSqlDatabase>
 #include <QString>
 
 #include <chrono>
+#include <optional>
 
 namespace mw::storage::dialect {
 
@@ -14,11 +15,6 @@ namespace mw::storage::dialect {
 // SQLite files.
 constexpr int kApplicationId = 0x4D57424B;
 
-// Column type of surrogate keys (PostgreSQL: "BIGINT GENERATED ALWAYS AS IDENTITY PRIMARY KEY").
-QString idColumn();
-// Table option for a table stored in its primary key's b-tree alone (SQLite's WITHOUT ROWID;
-// empty where tables are heaps anyway).
-QString keyOnlyTableOption();
 // Expression for "now" as ISO 8601 UTC with milliseconds, used by the audit triggers.
 QString nowUtcExpression();
 
@@ -43,16 +39,9 @@ QString integrityCheck(const QSqlDatabase& db);
 // Writes a consistent copy of the database to a new file.
 void vacuumInto(const QSqlDatabase& db, const QString& targetPath);
 
-// The integrity rules of schema version 1 (see the comment of each trigger in the .cpp).
-void createIntegrityTriggers(const QSqlDatabase& db);
-// Audit triggers of schema version 2 on every table that holds records.
-void createAuditTriggers(const QSqlDatabase& db);
-// The triggers refusing a write that would replace a row by its key (INSERT OR REPLACE,
-// UPDATE OR REPLACE), in sqlite_dialect_keys.cpp: those of the record tables (created with the
-// version 1 rules) and of the audit tables (version 2). createKeyTriggers adds any missing ones
-// to a workbook made before they existed, and is harmless to repeat.
-void createRecordKeyTriggers(const QSqlDatabase& db);
-void createAuditKeyTriggers(const QSqlDatabase& db);
-void createKeyTriggers(const QSqlDatabase& db);
+// Foreign key enforcement is off while tables are rebuilt (it cannot change inside a
+// transaction); foreignKeyProblem() then names the first row that refers to nothing.
+void setForeignKeys(const QSqlDatabase& db, bool on);
+std::optional<QString> foreignKeyProblem(const QSqlDatabase& db);
 
 } // namespace mw::storage::dialect

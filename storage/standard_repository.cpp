@@ -26,32 +26,56 @@ void bindFields(QSqlQuery& q, const ReferenceStandard& s) {
     q.addBindValue(sql::toIsoDate(s.due_date));
 }
 
-void insertSpecs(const QSqlDatabase& db, const ReferenceStandard& s) {
-    QSqlQuery del = sql::prepare(db, QStringLiteral("DELETE FROM standard_specs WHERE "
-                                                    "standard_id = ?"));
-    del.addBindValue(qint64(s.id));
-    sql::exec(del, QStringLiteral("replacing the specification of ") + where(s));
-    QSqlQuery q = sql::prepare(
-        db, QStringLiteral("INSERT INTO standard_specs (standard_id, sort_order, label, unit, "
-                           "full_scale, percent_of_reading, percent_of_range, floor_value, "
-                           "certificate_expanded_uncertainty, coverage_factor) VALUES "
-                           "(?, ?, ?, ?, ?, ?, ?, ?, ?, ?)"));
-    int order = 0;
-    for (const StandardRangeSpec& spec : s.specs) {
+void bindSpec(QSqlQuery& q, const StandardRangeSpec& spec, const QString& context) {
+    q.addBindValue(QString::fromStdString(spec.label));
+    q.addBindValue(sql::unitText(spec.unit, context));
+    q.addBindValue(sql::enumText(spec.signal));
+    q.addBindValue(spec.full_scale);
+    q.addBindValue(spec.percent_of_reading);
+    q.addBindValue(spec.percent_of_range);
+    q.addBindValue(spec.floor);
+    q.addBindValue(sql::nullableReal(spec.certificate_expanded_uncertainty));
+    q.addBindValue(spec.coverage_factor);
+    q.addBindValue(sql::nullableReal(spec.degrees_of_freedom));
+}
+
+// Saves the ranges of a standard by position: a range that stays is updated in place (so the
+// audit log shows what changed in it), new positions are added, positions no longer listed are
+// removed. Records never depend on these rows: each session keeps its own copies.
+void saveSpecs(const QSqlDatabase& db, const ReferenceStandard& s) {
+    const QString columns = QStringLiteral(
+        "label = ?, unit = ?, signal = ?, full_scale = ?, percent_of_reading = ?, "
+        "percent_of_range = ?, floor_value = ?, certificate_expanded_uncertainty = ?, "
+        "coverage_factor = ?, certificate_dof = ?");
+    QSqlQuery update = sql::prepare(
+        db, QStringLiteral("UPDATE standard_specs SET %1 WHERE standard_id = ? AND sort_order = ?")
+                .arg(columns));
+    QSqlQuery insert = sql::prepare(
+        db, QStringLiteral("INSERT INTO standard_specs (label, unit, signal, full_scale, "
+                           "percent_of_reading, percent_of_range, floor_value, "
+                           "certificate_expanded_uncertainty, coverage_factor, certificate_dof, "
+                           "standard_id, sort_order) VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?)"));
+    for (std::size_t i = 0; i < s.specs.size(); ++i) {
+        const StandardRangeSpec& spec = s.specs[i];
         const QString context =
             QStringLiteral("range \"%1\" of %2").arg(QString::fromStdString(spec.label), where(s));
-        q.addBindValue(qint64(s.id));
-        q.addBindValue(order++);
-        q.addBindValue(QString::fromStdString(spec.label));
-        q.addBindValue(sql::unitText(spec.unit, context));
-        q.addBindValue(spec.full_scale);
-        q.addBindValue(spec.percent_of_reading);
-        q.addBindValue(spec.percent_of_range);
-        q.addBindValue(spec.floor);
-        q.addBindValue(sql::nullableReal(spec.certificate_expanded_uncertainty));
-        q.addBindValue(spec.coverage_factor);
-        sql::exec(q, QStringLiteral("saving ") + context);
+        bindSpec(update, spec, context);
+        update.addBindValue(qint64(s.id));
+        update.addBindValue(int(i));
+        sql::exec(update, QStringLiteral("saving ") + context);
+        if (update.numRowsAffected() == 1) {
+            continue;
+        }
+        bindSpec(insert, spec, context);
+        insert.addBindValue(qint64(s.id));
+        insert.addBindValue(int(i));
+        sql::exec(insert, QStringLiteral("saving ") + context);
     }
+    QSqlQuery removed = sql::prepare(db, QStringLiteral("DELETE FROM standard_specs WHERE "
+                                                        "standard_id = ? AND sort_order >= ?"));
+    removed.addBindValue(qint64(s.id));
+    removed.addBindValue(int(s.specs.size()));
+    sql::exec(removed, QStringLiteral("removing ranges no longer listed of ") + where(s));
 }
 
 std::vector<ReferenceStandard> query(const QSqlDatabase& db, const QString& condition,
@@ -79,8 +103,8 @@ std::vector<ReferenceStandard> query(const QSqlDatabase& db, const QString& cond
     QSqlQuery specs = sql::prepare(
         db, QStringLiteral("SELECT standard_id, label, unit, full_scale, percent_of_reading, "
                            "percent_of_range, floor_value, certificate_expanded_uncertainty, "
-                           "coverage_factor FROM standard_specs ORDER BY standard_id, "
-                           "sort_order"));
+                           "coverage_factor, certificate_dof, signal FROM standard_specs ORDER BY "
+                           "standard_id, sort_order"));
     sql::exec(specs, QStringLiteral("reading reference standard specifications"));
     while (specs.next()) {
         const auto at = index.find(specs.value(0).toLongLong());
@@ -98,6 +122,10 @@ std::vector<ReferenceStandard> query(const QSqlDatabase& db, const QString& cond
             spec.certificate_expanded_uncertainty = specs.value(7).toDouble();
         }
         spec.coverage_factor = specs.value(8).toDouble();
+        if (!specs.value(9).isNull()) {
+            spec.degrees_of_freedom = specs.value(9).toDouble();
+        }
+        spec.signal = sql::enumFrom<SignalKind>(specs.value(10), "standard_specs.signal");
         found[at->second].specs.push_back(std::move(spec));
     }
     return found;
@@ -117,7 +145,7 @@ void StandardRepository::add(ReferenceStandard& standard) {
     ReferenceStandard saved = standard;
     saved.id = q.value(0).toLongLong();
     q.finish();
-    insertSpecs(db, saved);
+    saveSpecs(db, saved);
     transaction.commit();
     standard.id = saved.id;
 }
@@ -135,7 +163,7 @@ void StandardRepository::update(const ReferenceStandard& standard) {
         throw WorkbookError(Kind::NotFound,
                             QStringLiteral("no reference standard with id %1").arg(standard.id));
     }
-    insertSpecs(db, standard);
+    saveSpecs(db, standard);
     transaction.commit();
 }
 

@@ -18,7 +18,8 @@ public:
         : workbook_(workbook) {}
 
     void add(ReferenceStandard& standard); // sets standard.id
-    // Saves the fields and replaces the spec rows (recalibration: new certificate, due date).
+    // Saves the fields and the ranges' specifications, each range updated in place by its
+    // position (recalibration: a new certificate number and due date).
     void update(const ReferenceStandard& standard);
 
     std::optional<ReferenceStandard> find(std::int64_t standardId) const;

@@ -206,6 +206,7 @@ void Workbook::inspectAndMigrate(const OpenOptions& options) {
         throw WorkbookError(Kind::NotAWorkbook,
                             QStringLiteral("%1 is empty, not a workbook").arg(path_));
     }
+    versionWhenOpened_ = found.version;
     openConnection(options);
     if (isReadOnly()) {
         schemaVersion_ = found.version;

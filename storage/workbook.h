@@ -39,6 +39,8 @@ public:
     // Why the workbook is read-only ("the file is marked read-only" ...); empty when writable.
     const QString& readOnlyReason() const { return readOnlyReason_; }
     int schemaVersion() const { return schemaVersion_; }
+    // The version the file had when it was opened (before any upgrade; 0 for a new file).
+    int versionWhenOpened() const { return versionWhenOpened_; }
     // The copy written before an upgrade on this open; empty when no upgrade ran.
     const QString& upgradeBackupPath() const { return upgradeBackupPath_; }
 
@@ -65,6 +67,7 @@ private:
     QString readOnlyReason_;
     QString upgradeBackupPath_;
     int schemaVersion_ = 0;
+    int versionWhenOpened_ = 0;
     std::optional<std::int64_t> actor_;
     int transactionDepth_ = 0;
     bool rollbackOnly_ = false;

@@ -22,6 +22,7 @@ public:
         BadInput,      // a value the caller passed cannot be stored (empty name, bad unit ...)
         Io,            // backup/restore file operations
         Sql,           // anything else SQLite reported
+        Internal,      // a failure of the program itself or a library it uses (not the input)
     };
 
     WorkbookError(Kind kind, const QString& message);

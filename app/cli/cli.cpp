@@ -4,6 +4,7 @@
 #include "app/cli/cli_support.h"
 #include "app/cli/command_table.h"
 #include "core/units/quantity.h"
+#include "storage/workbook_error.h"
 
 #include <QCoreApplication>
 #include <QFileInfo>
@@ -11,11 +12,13 @@
 
 #include <cstring>
 #include <exception>
+#include <stdexcept>
 
 namespace mw::cli {
 namespace {
 
 constexpr int kUsageError = 2;
+constexpr int kInternalError = 3;
 
 std::vector<Command> calcCommands() {
     std::vector<Command> all = dcCalcCommands();
@@ -49,7 +52,13 @@ QString generalHelp() {
                           "  --help        show this text\n"
                           "  --version     show the version\n"
                           "\n"
-                          "Exit codes: 0 ok, 1 a check failed, 2 usage or input error.\n");
+                          "Exit codes: 0 ok, 1 a check failed, 2 usage or input error, 3 internal "
+                          "error.\n");
+}
+
+QString oneLine(QString text) {
+    text.replace(QLatin1Char('\n'), QStringLiteral("; "));
+    return text.simplified();
 }
 
 void printError(const QString& where, const QString& message) {
@@ -82,8 +91,21 @@ int runFrom(const std::vector<Command>& commands, const QString& family,
             printError(where, QString::fromStdString(error.what()));
         } catch (const QuantityError& error) {
             printError(where, QString::fromStdString(error.what()));
-        } catch (const std::exception& error) {
+        } catch (const storage::WorkbookError& error) {
+            // What the workbook refused is the input's fault; its own failures are not.
+            const bool internal = error.kind() == storage::WorkbookError::Kind::Internal ||
+                                  error.kind() == storage::WorkbookError::Kind::Sql;
+            printError(where, (internal ? QStringLiteral("internal error: ") : QString()) +
+                                  oneLine(error.message()));
+            return internal ? kInternalError : kUsageError;
+        } catch (const std::invalid_argument& error) {
+            printError(where, QString::fromStdString(error.what())); // the engine refused input
+        } catch (const std::domain_error& error) {
             printError(where, QString::fromStdString(error.what()));
+        } catch (const std::exception& error) {
+            printError(where, QStringLiteral("internal error: %1 (please report it)")
+                                  .arg(QString::fromStdString(error.what())));
+            return kInternalError;
         }
         return kUsageError;
     }

@@ -1,10 +1,12 @@
-// Top-level commands that work on a workbook file: verify (and the others listed in the
-// table at the bottom of this file).
+// Top-level commands that work on a workbook file: verify, upgrade (and the others listed in
+// the table at the bottom of this file).
 #include "app/cli/backup_commands.h"
 #include "app/cli/cli_support.h"
 #include "app/cli/command_table.h"
 #include "app/cli/demo_command.h"
+#include "app/cli/workbook_access.h"
 #include "storage/record_digest.h"
+#include "storage/verification.h"
 #include "storage/workbook.h"
 #include "storage/workbook_error.h"
 
@@ -15,15 +17,6 @@ namespace {
 
 constexpr int kCheckFailed = 1;
 
-QString onlyWorkbookArgument(const QCommandLineParser& parser) {
-    const QStringList positional = parser.positionalArguments();
-    if (positional.size() != 1) {
-        throw UsageError(
-            QStringLiteral("give exactly one WORKBOOK file (got %1)").arg(positional.size()));
-    }
-    return positional.first();
-}
-
 void printReport(const storage::VerificationReport& report, const QString& path, bool json) {
     if (json) {
         QJsonObject object{
@@ -32,6 +25,8 @@ void printReport(const storage::VerificationReport& report, const QString& path,
             {QStringLiteral("integrity_check"), report.integrityMessage},
             {QStringLiteral("records_checked"), report.recordsChecked},
             {QStringLiteral("sessions_checked"), report.sessionsChecked},
+            {QStringLiteral("verdicts_checked"), report.verdictsChecked},
+            {QStringLiteral("verdicts_not_recorded"), report.verdictsNotRecorded},
             {QStringLiteral("chain_head"),
              QJsonObject{{QStringLiteral("records"), report.chainLength},
                          {QStringLiteral("digest"), report.chainHeadDigest}}},
@@ -49,6 +44,13 @@ void printReport(const storage::VerificationReport& report, const QString& path,
     printLine(QStringLiteral("calibration sessions looked at: %1").arg(report.sessionsChecked));
     printLine(QStringLiteral("approved records whose digest was recomputed and matched: %1")
                   .arg(report.recordsChecked));
+    printLine(QStringLiteral("stored outcomes recomputed from the inputs they were sealed with: %1")
+                  .arg(report.verdictsChecked));
+    if (report.verdictsNotRecorded > 0) {
+        printLine(QStringLiteral("outcomes sealed before their inputs were recorded (not "
+                                 "recomputable): %1")
+                      .arg(report.verdictsNotRecorded));
+    }
     // Compared with a copy kept elsewhere, the head shows a chain cut back or rebuilt.
     printLine(QStringLiteral("chain head: %1 records, last digest %2")
                   .arg(report.chainLength)
@@ -63,30 +65,61 @@ void printReport(const storage::VerificationReport& report, const QString& path,
 
 int runVerify(const QStringList& arguments) {
     QCommandLineParser parser;
-    parser.setApplicationDescription(
-        QStringLiteral("Checks a workbook: SQLite integrity, and the digest chain of approved "
-                       "records. Exit 0 when sound, 1 naming the first record that no longer "
-                       "matches, 2 when the file cannot be opened."));
+    parser.setApplicationDescription(QStringLiteral(
+        "Checks a workbook: SQLite integrity, the digest chain of approved records, and every "
+        "stored outcome against the session evaluator on the inputs the session was sealed "
+        "with. Exit 0 when sound, 1 naming the first record that no longer matches, 2 when the "
+        "file cannot be opened."));
     parser.addPositionalArgument(QStringLiteral("WORKBOOK"), QStringLiteral("the workbook file"));
     const QString commandLine = QStringLiteral("verify");
     parseOptions(parser, commandLine, arguments);
     if (helpRequested(parser, commandLine)) {
         return 0;
     }
-    const QString path = onlyWorkbookArgument(parser);
-    storage::OpenOptions options;
-    options.readOnly = true; // verification never writes
-    try {
-        const storage::Workbook workbook(path, options);
-        const storage::VerificationReport report = storage::verifyWorkbook(workbook);
-        printReport(report, path, parser.isSet(QStringLiteral("json")));
-        return report.sound() ? 0 : kCheckFailed;
-    } catch (const storage::WorkbookError& error) {
-        // One line on stderr whatever SQLite said: line breaks inside its text are folded.
-        QString message = error.message();
-        message.replace(QLatin1Char('\n'), QStringLiteral("; "));
-        throw UsageError(QStringLiteral("cannot open the workbook: ") + message.simplified());
+    const QString path = onlyWorkbookArgument(parser.positionalArguments());
+    const auto workbook = openForReading(path); // verification never writes
+    const storage::VerificationReport report = storage::verifyWorkbook(*workbook);
+    printReport(report, path, parser.isSet(QStringLiteral("json")));
+    return report.sound() ? 0 : kCheckFailed;
+}
+
+int runUpgrade(const QStringList& arguments) {
+    QCommandLineParser parser;
+    parser.setApplicationDescription(QStringLiteral(
+        "Upgrades a workbook written by an earlier version of Meterwright to the current one, in "
+        "place, as opening it in the window does: a copy of the file as it is is written beside "
+        "it first, and each step runs in its own transaction, so a step that fails leaves the "
+        "file as it was. Exit 0 when upgraded or already current, 2 when it cannot be."));
+    parser.addPositionalArgument(QStringLiteral("WORKBOOK"), QStringLiteral("the workbook file"));
+    const QString commandLine = QStringLiteral("upgrade");
+    parseOptions(parser, commandLine, arguments);
+    if (helpRequested(parser, commandLine)) {
+        return 0;
     }
+    const QString path = onlyWorkbookArgument(parser.positionalArguments());
+    const auto workbook = openForWriting(path);
+    const bool upgraded = !workbook->upgradeBackupPath().isEmpty();
+    if (parser.isSet(QStringLiteral("json"))) {
+        printJson(QJsonObject{
+            {QStringLiteral("workbook"), path},
+            {QStringLiteral("version_before"), workbook->versionWhenOpened()},
+            {QStringLiteral("version"), workbook->schemaVersion()},
+            {QStringLiteral("kept_as"),
+             upgraded ? QJsonValue(workbook->upgradeBackupPath()) : QJsonValue(QJsonValue::Null)},
+        });
+    } else if (upgraded) {
+        printLine(QStringLiteral("upgraded %1 from workbook version %2 to %3; the file as it was "
+                                 "is kept as %4")
+                      .arg(path)
+                      .arg(workbook->versionWhenOpened())
+                      .arg(workbook->schemaVersion())
+                      .arg(workbook->upgradeBackupPath()));
+    } else {
+        printLine(QStringLiteral("%1 is already at workbook version %2; nothing to do")
+                      .arg(path)
+                      .arg(workbook->schemaVersion()));
+    }
+    return 0;
 }
 
 } // namespace
@@ -98,6 +131,9 @@ std::vector<Command> workbookCommands() {
         {QStringLiteral("verify"),
          QStringLiteral("check a workbook's integrity and the digest chain of approved records"),
          runVerify},
+        {QStringLiteral("upgrade"),
+         QStringLiteral("upgrade a workbook of an earlier version in place (a copy is kept)"),
+         runUpgrade},
         backupCommand(),
         restoreCommand(),
     };

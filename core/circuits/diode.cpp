@@ -92,6 +92,16 @@ std::string_view presetName(DiodePreset preset) {
     return "?";
 }
 
+std::optional<DiodePreset> presetFromName(std::string_view name) {
+    for (DiodePreset preset :
+         {DiodePreset::SmallSignalSilicon, DiodePreset::Schottky, DiodePreset::Germanium}) {
+        if (presetName(preset) == name) {
+            return preset;
+        }
+    }
+    return std::nullopt;
+}
+
 double saturationCurrentAt(const DiodeParameters& p, double celsius) {
     validate(p);
     const double kelvin = kelvinFromCelsius(celsius, "the operating temperature");

@@ -1,6 +1,7 @@
 // Shockley junction diode with series resistance and SPICE level-1 temperature scaling.
 #pragma once
 
+#include <optional>
 #include <string_view>
 
 namespace mw {
@@ -13,6 +14,8 @@ struct DiodeParameters {
     double nominal_celsius = 27.0;         // TNOM, SPICE's default
     double bandgap_ev = 1.11;              // EG, SPICE's default (silicon)
     double saturation_temp_exponent = 3.0; // XTI, SPICE's default (pn junction)
+
+    bool operator==(const DiodeParameters&) const = default;
 };
 
 // Throws std::invalid_argument naming the first parameter that is out of range.
@@ -22,7 +25,8 @@ enum class DiodePreset { SmallSignalSilicon, Schottky, Germanium };
 
 // Generic parameter sets; the origin of each value is stated beside it in diode.cpp.
 DiodeParameters diodePreset(DiodePreset preset);
-std::string_view presetName(DiodePreset preset);
+std::string_view presetName(DiodePreset preset); // stable text: "silicon", "schottky", ...
+std::optional<DiodePreset> presetFromName(std::string_view name);
 
 // IS at `celsius` as SPICE level 1 scales it:
 // IS(T) = IS · (T/TNOM)^(XTI/N) · exp((T/TNOM − 1) · EG / (N · kT/q)).

@@ -123,7 +123,9 @@ void addTypeA(const PointGroup& group, std::size_t chosenCount, PointResult& poi
 
 std::vector<UncertaintyComponent> typeBComponents(const EvaluationInput& input, double applied) {
     std::vector<UncertaintyComponent> components;
-    if (input.reference) {
+    if (input.referenceComponents) {
+        components = input.referenceComponents(applied);
+    } else if (input.reference) {
         const double rangeValue = input.referenceRangeValue.value_or(
             std::max(std::fabs(input.range.lower), std::fabs(input.range.upper)));
         components.push_back(referenceComponent(*input.reference, applied, rangeValue));

@@ -62,6 +62,9 @@ struct EvaluationInput {
     std::optional<double> referenceRangeValue; // full scale of the standard's range; default
                                                // the larger modulus of the range limits
     double referenceResolution = 0.0;          // 0 leaves out the resolution component
+    // The reference standard's components at an applied value, when they are more than one
+    // spec can say (a current read across a shunt); used instead of `reference` when set.
+    std::function<std::vector<UncertaintyComponent>(double applied)> referenceComponents;
     std::optional<TemperatureInfluence> temperature;
     std::vector<UncertaintyComponent> extraComponents; // user-added, at every point
     DecisionSettings decision;
@@ -111,9 +114,11 @@ struct EvaluationResult {
 
 // Readings must lie on the range's scale: an applied value beyond lower … upper by more than
 // kScaleEndAllowance of the span is refused (a 20 V reading on a 10 V range is a wrong range or a
-// typing slip, never a point to pass). The allowance lets a cardinal point at either end be set
-// slightly beyond the mark, as a standard's setting resolution requires.
-inline constexpr double kScaleEndAllowance = 0.01;
+// typing slip, never a point to pass). The allowance is wide enough for the common practice of
+// setting the pointer on the end mark and reading what the standard applies: a meter reading
+// several per cent low needs that much more than full scale, and a failing meter must still be
+// recorded (our own choice: a fifth of the span, the usual 120 % overrange of a test).
+inline constexpr double kScaleEndAllowance = 0.2;
 
 // Throws std::invalid_argument naming the input (and the reading number, 1-based) at fault.
 EvaluationResult evaluateRange(const EvaluationInput& input);

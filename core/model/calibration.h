@@ -2,7 +2,10 @@
 // adjustment notes, the reference standards it used, its review state and revision chain.
 #pragma once
 
+#include "core/circuits/diode.h"
+#include "core/model/reference_standard.h"
 #include "core/model/vocabulary.h"
+#include "core/uncertainty/distributions.h"
 #include "core/units/quantity.h"
 
 #include <chrono>
@@ -67,6 +70,65 @@ struct Environment {
     bool operator==(const Environment&) const = default;
 };
 
+// How a session's results are worked out, chosen with the session and sealed with it.
+struct EvaluationSettings {
+    double readability_fraction = 0.2; // of a scale division, to which the pointer is read
+    double coverage_probability = kProbabilityTwoSigma; // of the expanded uncertainty U
+    // IEC 60051-1 reference temperature (23 °C unless the dial is marked otherwise).
+    double reference_celsius = 23.0;
+
+    bool operator==(const EvaluationSettings&) const = default;
+};
+
+// One range of a reference standard as a session used it: a copy of the standard's
+// specification of that range taken at submission, so the record stays as it was decided when
+// the standard is recalibrated or its specification edited.
+struct StandardSpecCopy {
+    std::int64_t standard_id = 0;
+    int sort_order = 0; // the range's position among the standard's ranges
+    StandardRangeSpec spec;
+
+    bool operator==(const StandardSpecCopy&) const = default;
+};
+
+// A standard's range by its position, within the copies of a session.
+struct SpecRef {
+    std::int64_t standard_id = 0;
+    int sort_order = 0;
+
+    bool operator==(const SpecRef&) const = default;
+};
+
+// A range of the instrument as a session used it, copied at submission: what the register said
+// then, and which standard's range the reference uncertainty was taken from.
+struct RangeAsUsed {
+    std::int64_t range_id = 0;
+    SignalType signal = SignalType::Dc;
+    std::optional<DiodeParameters> diode; // rectifier ranges whose diode model is recorded
+    std::optional<double> resistor_ohms;  // multiplier or shunt fitted (nullopt: none)
+    int divisions = 0;                    // scale divisions (0: not stated)
+    // The standard's range that delivered or measured the applied value; for a current read
+    // as the voltage across a shunt, the voltage range here and the shunt in reference_shunt.
+    // nullopt: no standard covers the range, and the budget says so.
+    std::optional<SpecRef> reference;
+    std::optional<SpecRef> reference_shunt;
+
+    bool operator==(const RangeAsUsed&) const = default;
+};
+
+// Everything besides its own rows that a session's verdict rests on.
+struct SealedInputs {
+    std::vector<RangeAsUsed> ranges;
+    std::vector<StandardSpecCopy> specs;
+
+    bool operator==(const SealedInputs&) const = default;
+};
+
+// Format of a stored record. 1: sealed before the workbook copied the evaluation inputs into
+// each session (those are "not recorded" for it); 2: sealed with its inputs.
+inline constexpr int kRecordFormatWithoutInputs = 1;
+inline constexpr int kRecordFormat = 2;
+
 struct CalibrationSession {
     std::int64_t id = 0; // assigned by the workbook; 0 until saved
     std::int64_t instrument_id = 0;
@@ -77,8 +139,16 @@ struct CalibrationSession {
     std::string method;
     std::vector<StandardUse> standards;
     DecisionRule decision_rule = DecisionRule::SimpleAcceptance;
-    double guard_factor = 0.0; // r in w = r * U (ILAC G8:09/2019 4.2.3); 0 for simple acceptance
-    std::optional<Outcome> outcome; // overall result once evaluated
+    double guard_factor = 0.0; // r in w = r * U (ILAC G8:09/2019 4.2.2/4.2.3); 0 for simple
+    // Computed by the session evaluator at submission (the condition the meter leaves in);
+    // never typed. nullopt while a draft.
+    std::optional<Outcome> outcome;
+    int record_format = kRecordFormat;
+    // nullopt only for records of format 1, whose settings were not recorded.
+    std::optional<EvaluationSettings> settings = EvaluationSettings{};
+    // Copied at submission (an amendment starts with the copies of the record it amends);
+    // nullopt while a draft evaluates against the register as it stands.
+    std::optional<SealedInputs> sealed;
 
     SessionState state = SessionState::Draft;
     std::optional<Timestamp> submitted_at;

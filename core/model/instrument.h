@@ -1,6 +1,7 @@
 // An analog instrument on the register: movement, ranges, scale, accuracy class and status.
 #pragma once
 
+#include "core/circuits/diode.h"
 #include "core/circuits/movement.h"
 #include "core/model/vocabulary.h"
 #include "core/units/quantity.h"
@@ -25,6 +26,12 @@ struct RangeSpec {
     // Set when the fiducial value is fixed explicitly rather than derived from the scale type
     // (IEC 60051-1 5.2.3 lets the relevant part say so, e.g. for suppressed-zero scales).
     std::optional<double> fiducial_value;
+    // DC, or AC through a half-wave or bridge rectifier. nullopt only in a range registered
+    // before the workbook recorded it (and not yet set since): it is then "not recorded", and
+    // the range cannot be calibrated until someone who knows the meter sets it.
+    std::optional<SignalType> signal = SignalType::Dc;
+    // The model of the rectifier's diodes (rectifier ranges only); nullopt when not recorded.
+    std::optional<DiodePreset> diode;
 
     bool operator==(const RangeSpec&) const = default;
 };

@@ -2,6 +2,7 @@
 // certificate or specification says about each of its ranges.
 #pragma once
 
+#include "core/model/vocabulary.h"
 #include "core/units/quantity.h"
 
 #include <chrono>
@@ -23,6 +24,10 @@ struct StandardRangeSpec {
     double floor = 0.0;                                     // in `unit`
     std::optional<double> certificate_expanded_uncertainty; // in `unit`, at coverage_factor
     double coverage_factor = 2.0;
+    // Effective degrees of freedom the certificate states for U; nullopt: none stated, taken
+    // as infinite (JCGM 100:2008 G.4.2: a Type B estimate taken as exactly known).
+    std::optional<double> degrees_of_freedom;
+    SignalKind signal = SignalKind::Dc; // what the range delivers or measures (ohms: DC)
 
     bool operator==(const StandardRangeSpec&) const = default;
 };

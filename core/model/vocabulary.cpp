@@ -23,6 +23,12 @@ constexpr Words<ScaleType, 4> kScaleTypes{{
     {ScaleType::NoZero, "no-zero"},
     {ScaleType::NonLinear, "non-linear"},
 }};
+constexpr Words<SignalType, 3> kSignalTypes{{
+    {SignalType::Dc, "dc"},
+    {SignalType::HalfWave, "half-wave"},
+    {SignalType::Bridge, "bridge"},
+}};
+constexpr Words<SignalKind, 2> kSignalKinds{{{SignalKind::Dc, "dc"}, {SignalKind::Ac, "ac"}}};
 constexpr Words<Direction, 2> kDirections{{{Direction::Up, "up"}, {Direction::Down, "down"}}};
 constexpr Words<Phase, 2> kPhases{{{Phase::AsFound, "as-found"}, {Phase::AsLeft, "as-left"}}};
 constexpr Words<SessionState, 5> kSessionStates{{
@@ -81,6 +87,12 @@ std::string_view toText(InstrumentKind value) {
 std::string_view toText(ScaleType value) {
     return lookup(kScaleTypes, value);
 }
+std::string_view toText(SignalType value) {
+    return lookup(kSignalTypes, value);
+}
+std::string_view toText(SignalKind value) {
+    return lookup(kSignalKinds, value);
+}
 std::string_view toText(Direction value) {
     return lookup(kDirections, value);
 }
@@ -110,6 +122,14 @@ std::optional<InstrumentKind> fromText(std::string_view text) {
 template <>
 std::optional<ScaleType> fromText(std::string_view text) {
     return reverseLookup(kScaleTypes, text);
+}
+template <>
+std::optional<SignalType> fromText(std::string_view text) {
+    return reverseLookup(kSignalTypes, text);
+}
+template <>
+std::optional<SignalKind> fromText(std::string_view text) {
+    return reverseLookup(kSignalKinds, text);
 }
 template <>
 std::optional<Direction> fromText(std::string_view text) {
@@ -168,6 +188,26 @@ std::string_view displayName(ScaleType value) {
         return "Strongly non-linear scale";
     }
     return "?";
+}
+
+std::string_view displayName(SignalType value) {
+    switch (value) {
+    case SignalType::Dc:
+        return "DC";
+    case SignalType::HalfWave:
+        return "AC, half-wave rectifier";
+    case SignalType::Bridge:
+        return "AC, bridge rectifier";
+    }
+    return "?";
+}
+
+std::string_view displayName(SignalKind value) {
+    return value == SignalKind::Dc ? "DC" : "AC";
+}
+
+SignalKind kindOf(SignalType signal) {
+    return signal == SignalType::Dc ? SignalKind::Dc : SignalKind::Ac;
 }
 
 std::string_view displayName(Phase value) {

@@ -23,6 +23,13 @@ enum class ScaleType {
     NonLinear,  // strongly non-uniform scale: fiducial value = scale length
 };
 
+// What one range of an instrument measures and how: a DC quantity, or an AC voltage through a
+// half-wave or a full-wave bridge rectifier (the scale marked in rms of a sine).
+enum class SignalType { Dc, HalfWave, Bridge };
+
+// What one range of a reference standard delivers or measures.
+enum class SignalKind { Dc, Ac };
+
 enum class Direction { Up, Down };
 
 enum class Phase { AsFound, AsLeft };
@@ -43,6 +50,8 @@ enum class Outcome { Pass, ConditionalPass, ConditionalFail, Fail };
 
 std::string_view toText(InstrumentKind value);
 std::string_view toText(ScaleType value);
+std::string_view toText(SignalType value);
+std::string_view toText(SignalKind value);
 std::string_view toText(Direction value);
 std::string_view toText(Phase value);
 std::string_view toText(SessionState value);
@@ -58,11 +67,16 @@ std::optional<Enum> fromText(std::string_view text);
 // Words a person reads (labels, records); the stable text above is for machines.
 std::string_view displayName(InstrumentKind value);
 std::string_view displayName(ScaleType value);
+std::string_view displayName(SignalType value);
+std::string_view displayName(SignalKind value);
 std::string_view displayName(Phase value);
 std::string_view displayName(SessionState value);
 std::string_view displayName(Outcome value);
 std::string_view displayName(DecisionRule value);
 std::string_view displayName(InstrumentStatus value);
 std::string_view displayName(Role value);
+
+// The kind of standard signal a range needs: AC for the rectifier ranges, DC otherwise.
+SignalKind kindOf(SignalType signal);
 
 } // namespace mw

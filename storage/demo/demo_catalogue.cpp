@@ -19,14 +19,12 @@ namespace {
 
 using std::chrono::days;
 
-enum class Coupling { Dc, HalfWave, Bridge };
-
 struct RangeRow {
     const char* label;
     Unit unit;
     double lower;
     double full_scale;
-    Coupling coupling;
+    SignalType signal;
 };
 
 struct InstrumentRow {
@@ -50,9 +48,9 @@ struct InstrumentRow {
 
 constexpr auto V = Unit::Volt;
 constexpr auto A = Unit::Ampere;
-constexpr auto DC = Coupling::Dc;
-constexpr auto HW = Coupling::HalfWave;
-constexpr auto BR = Coupling::Bridge;
+constexpr auto DC = SignalType::Dc;
+constexpr auto HW = SignalType::HalfWave;
+constexpr auto BR = SignalType::Bridge;
 constexpr auto kEnd = ScaleType::ZeroAtEnd;
 constexpr auto kInService = InstrumentStatus::InService;
 
@@ -165,13 +163,13 @@ std::optional<double> designedOhms(const InstrumentRow& row, const RangeRow& ran
         }
         return shunt_ohm(movement, top);
     }
-    if (range.coupling == Coupling::Dc) {
+    if (range.signal == SignalType::Dc) {
         return multiplier_ohm(movement, top);
     }
     RectifierCircuit circuit;
     circuit.movement_amps_fs = row.amps_fs;
     circuit.movement_ohms = row.ohms;
-    const bool bridge = range.coupling == Coupling::Bridge;
+    const bool bridge = range.signal == SignalType::Bridge;
     circuit.rectifier = bridge ? Rectifier::Bridge : Rectifier::HalfWave;
     const double averagePerRms =
         sineAveragePerRms(bridge ? Rectification::FullWave : Rectification::HalfWave);
@@ -201,16 +199,21 @@ Instrument fromRow(const InstrumentRow& row) {
         range.lower_limit = rangeRow.lower;
         range.full_scale = rangeRow.full_scale;
         range.nominal_ohms = designedOhms(row, rangeRow);
+        range.signal = rangeRow.signal;
+        if (rangeRow.signal != SignalType::Dc) {
+            range.diode = DiodePreset::SmallSignalSilicon;
+        }
         instrument.ranges.push_back(range);
     }
     return instrument;
 }
 
 StandardRangeSpec spec(const char* label, Unit unit, double full_scale, double pctReading,
-                       double pctRange) {
+                       double pctRange, SignalKind signal = SignalKind::Dc) {
     StandardRangeSpec result;
     result.label = label;
     result.unit = unit;
+    result.signal = signal;
     result.full_scale = full_scale;
     result.percent_of_reading = pctReading;
     result.percent_of_range = pctRange;
@@ -260,9 +263,9 @@ std::vector<ReferenceStandard> demoStandards(std::chrono::sys_days today) {
                         spec("20 V DC", V, 20, 0.004, 0.0008),
                         spec("200 V DC", V, 200, 0.005, 0.001),
                         spec("1000 V DC", V, 1000, 0.006, 0.001),
-                        spec("20 V AC 45 Hz-1 kHz", V, 20, 0.05, 0.01),
-                        spec("200 V AC 45 Hz-1 kHz", V, 200, 0.05, 0.01),
-                        spec("1000 V AC 45 Hz-1 kHz", V, 1000, 0.07, 0.01),
+                        spec("20 V AC 45 Hz-1 kHz", V, 20, 0.05, 0.01, SignalKind::Ac),
+                        spec("200 V AC 45 Hz-1 kHz", V, 200, 0.05, 0.01, SignalKind::Ac),
+                        spec("1000 V AC 45 Hz-1 kHz", V, 1000, 0.07, 0.01, SignalKind::Ac),
                         spec("2 mA DC", A, 2e-3, 0.02, 0.005),
                         spec("20 mA DC", A, 20e-3, 0.02, 0.005),
                         spec("200 mA DC", A, 0.2, 0.02, 0.005),
@@ -345,7 +348,7 @@ std::vector<Instrument> demoInstruments() {
 }
 
 bool isAcRange(const RangeSpec& range) {
-    return !range.label.empty() && range.label.back() == '~';
+    return range.signal && *range.signal != SignalType::Dc;
 }
 
 std::string resistorName(const Instrument& instrument, std::size_t rangeIndex) {

@@ -52,10 +52,11 @@ std::vector<DemoCertificate> certificateHistory(int standardIndex, std::chrono::
                                                 std::chrono::sys_days from);
 
 // About 25 meters of every kind, with ranges whose multipliers and shunts are designed from the
-// movement (ideal rectifier diodes).
+// movement (ideal rectifier diodes), each range with its signal type (and silicon diodes for the
+// rectifier ranges).
 std::vector<Instrument> demoInstruments();
 
-// True when the range is marked for AC (its label ends in "~").
+// True when the range is a rectifier (AC) range.
 bool isAcRange(const RangeSpec& range);
 
 // The component name of a range's multiplier or shunt as it would appear on a circuit diagram.

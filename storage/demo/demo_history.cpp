@@ -238,16 +238,12 @@ SessionContent MeterSimulation::calibrate(Timestamp start, bool firstVisit) {
     const std::vector<Reading> asFound = run(Phase::AsFound);
     content.readings = asFound;
     const double worst = worstErrorFraction(instrument_, asFound, Phase::AsFound);
-    content.out_of_tolerance_as_found = worst > 1.0;
-    double final_worst = worst;
     // Close to the limit is adjusted too, so that the meter lasts its interval (common practice).
     if (worst > 0.75) {
         adjust(start + std::chrono::minutes(40), asFound, content);
         const std::vector<Reading> asLeft = run(Phase::AsLeft);
         content.readings.insert(content.readings.end(), asLeft.begin(), asLeft.end());
-        final_worst = worstErrorFraction(instrument_, asLeft, Phase::AsLeft);
     }
-    content.outcome = final_worst > 1.0 ? Outcome::Fail : Outcome::Pass;
     content.minutes = 25 + 2 * static_cast<int>(content.readings.size());
     return content;
 }
@@ -256,8 +252,6 @@ SessionContent MeterSimulation::calibrateDamaged(Timestamp start) {
     damaged_ = true;
     SessionContent content;
     content.readings = run(Phase::AsFound);
-    content.out_of_tolerance_as_found = true;
-    content.outcome = Outcome::Fail;
     content.adjustments.push_back(AdjustmentNote{
         start + std::chrono::minutes(30),
         "Pointer hangs between 40 % and 60 % of the scale and reads far high there; the lower "

@@ -15,14 +15,13 @@ struct SessionContent {
     std::vector<Reading> readings;
     std::vector<ResistorCheck> resistor_checks;
     std::vector<AdjustmentNote> adjustments;
-    Outcome outcome = Outcome::Pass;
-    bool out_of_tolerance_as_found = false;
     int minutes = 0; // bench time the work took
 };
 
 // The largest |indicated - applied| of `readings` in `phase` as a fraction of the limit of
-// error of its range (class index % of the fiducial value, IEC 60051-1): above 1 is out of
-// tolerance. Zero when there is no such reading.
+// error of its range (class index % of the fiducial value, IEC 60051-1). What the simulated
+// technician looks at to decide whether to adjust; the verdict comes from the session evaluator.
+// Zero when there is no such reading.
 double worstErrorFraction(const Instrument& instrument, const std::vector<Reading>& readings,
                           Phase phase);
 

@@ -222,13 +222,19 @@ PlannedSession visit(const Instrument& instrument, std::size_t index, MeterSimul
     session.started_at = start;
     session.environment = environmentOf(random);
     session.method = methodFor(instrument, !content.resistor_checks.empty());
+    // The shop's procedure: laboratory meters (class 0.5 and better) are judged with guarded
+    // acceptance, w = U (ILAC G8:09/2019 4.2.3), so a result near a limit is stated as
+    // conditional; panel and portable meters with simple acceptance.
+    if (instrument.accuracy_class <= 0.5) {
+        session.decision_rule = DecisionRule::GuardedAcceptance;
+        session.guard_factor = 1.0;
+    }
     session.standards = standardsFor(instrument, content, standards, day);
     session.readings = std::move(content.readings);
     session.resistor_checks = std::move(content.resistor_checks);
     session.adjustments = std::move(content.adjustments);
     if (planned.fate != Fate::Draft) {
         session.finished_at = start + minutes(content.minutes);
-        session.outcome = content.outcome;
         planned.submitted_at = *session.finished_at + minutes(10);
         const sys_days submittedDay = std::chrono::floor<days>(planned.submitted_at);
         planned.decided_at = planned.fate == Fate::Returned

@@ -3,6 +3,8 @@
 // reviewer) approves, the administrator keeps the register, and the audit log names who did what.
 #include "storage/demo/demo_workbook.h"
 
+#include "core/evaluation/session_evaluation.h"
+
 #include "storage/demo/demo_catalogue.h"
 #include "storage/demo/demo_history.h"
 #include "storage/demo/demo_schedule.h"
@@ -270,9 +272,24 @@ DemoSummary summarise(Workbook& workbook, const std::vector<Instrument>& instrum
                        summary.returned + summary.drafts;
     for (const PlannedSession& session : planned) {
         summary.amendments += session.amendment ? 1 : 0;
-        const Instrument& instrument = instruments[session.instrument];
-        if (worstErrorFraction(instrument, session.session.readings, Phase::AsFound) > 1.0) {
-            ++summary.outOfToleranceAsFound;
+    }
+    // Found out of tolerance as found: the session evaluator's as-found verdict (fail or
+    // conditional fail) on what each first revision was submitted with.
+    for (SessionState state : {SessionState::Approved, SessionState::Superseded,
+                               SessionState::Submitted, SessionState::Returned}) {
+        for (const CalibrationSession& session : sessions.withState(state)) {
+            const auto instrument = std::find_if(
+                instruments.begin(), instruments.end(),
+                [&session](const Instrument& i) { return i.id == session.instrument_id; });
+            if (session.revision != 1 || instrument == instruments.end()) {
+                continue;
+            }
+            const SessionEvaluation evaluation =
+                evaluateSession(*instrument, session, session.sealed.value_or(SealedInputs{}));
+            if (evaluation.asFound && (*evaluation.asFound == Outcome::Fail ||
+                                       *evaluation.asFound == Outcome::ConditionalFail)) {
+                ++summary.outOfToleranceAsFound;
+            }
         }
     }
     summary.readings = static_cast<int>(sessions.readingCount());
@@ -319,9 +336,14 @@ DemoSummary writeDemoWorkbook(const QString& path, std::chrono::sys_days today,
     }
     try {
         return fill(path, today, seed);
-    } catch (...) {
+    } catch (const storage::WorkbookError&) {
         removeWithCompanions(path); // the workbook was closed as fill() unwound
         throw;
+    } catch (const std::exception& error) {
+        removeWithCompanions(path);
+        throw storage::WorkbookError(storage::WorkbookError::Kind::Internal,
+                                     QStringLiteral("writing the demo workbook failed: %1")
+                                         .arg(QString::fromUtf8(error.what())));
     }
 }
 

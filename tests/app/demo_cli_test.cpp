@@ -1,7 +1,7 @@
 // `meterwright demo WORKBOOK` run as a separate process: a good run, and the refusals (an
 // existing file, a malformed date, a missing file name) with exit code 2 and one line on stderr.
 #include "storage/instrument_repository.h"
-#include "storage/record_digest.h"
+#include "storage/verification.h"
 #include "storage/workbook.h"
 #include "support/cli_process.h"
 

@@ -41,7 +41,8 @@ std::int64_t writeWorkbook(const QString& path) {
     meter.asset_tag = "VM-7";
     meter.movement = mw::Movement{1e-3, 50.0};
     meter.accuracy_class = 2.5;
-    meter.ranges = {{0, "10 V", mw::Unit::Volt, 0.0, 10.0, 9950.0, std::nullopt}};
+    meter.ranges = {
+        {0, "10 V", mw::Unit::Volt, 0.0, 10.0, 9950.0, std::nullopt, mw::SignalType::Dc, {}}};
     mw::storage::InstrumentRepository(workbook).add(meter);
     mw::storage::SessionRepository sessions(workbook);
     std::int64_t last = 0;

@@ -205,27 +205,27 @@ TEST_CASE("an applied value off the range's scale is refused naming the reading"
                                                 Catch::Contains("20.00 V") &&
                                                 Catch::Contains("0.000 V … 10.00 V"));
     input = syntheticMeter();
-    input.readings[0].applied = -0.5;
+    input.readings[0].applied = -2.5;
     CHECK_THROWS_WITH(evaluateRange(input), Catch::Contains("reading 1"));
-    // Within 1 % of the span beyond either end: a cardinal point set just past the mark.
+    // Within a fifth of the span beyond either end: the pointer set on the end mark of a meter
+    // that reads low (or high) needs more (or less) than the range from the standard.
     input = syntheticMeter();
-    input.readings.push_back({10.1, 10.2, Direction::Up, 1, -1});
-    input.readings.push_back({-0.1, -0.05, Direction::Up, 1, -1});
+    input.readings.push_back({10.4, 10.0, Direction::Up, 1, -1});
+    input.readings.push_back({-2.0, -1.9, Direction::Up, 1, -1});
     CHECK_NOTHROW(evaluateRange(input));
-    input.readings.back().applied = -0.11;
+    input.readings.back().applied = -2.01;
     CHECK_THROWS_WITH(evaluateRange(input), Catch::Contains("reading 14"));
 }
 
 TEST_CASE("a centre-zero range accepts both signs up to its limits") {
-    // Zero inside the scale, -5 … +5 mA (IEC 60051-1 scale type); 1 % of the 10 mA span.
+    // Zero inside the scale, -5 … +5 mA (IEC 60051-1 scale type); a fifth of the 10 mA span.
     EvaluationInput input;
     input.unit = Unit::Ampere;
     input.range = {-5e-3, 5e-3, ScaleType::ZeroInside, {}};
     input.classIndex = 2.5;
-    input.readings = {{-5e-3, -5.01e-3, Direction::Up, 1, -1},
-                      {5.1e-3, 5.1e-3, Direction::Up, 1, -1}};
+    input.readings = {{-5e-3, -5.01e-3, Direction::Up, 1, -1}, {7e-3, 7e-3, Direction::Up, 1, -1}};
     CHECK(evaluateRange(input).points.size() == 2);
-    input.readings.push_back({5.2e-3, 5.2e-3, Direction::Up, 1, -1});
+    input.readings.push_back({7.1e-3, 7.1e-3, Direction::Up, 1, -1});
     CHECK_THROWS_WITH(evaluateRange(input),
-                      Catch::Contains("reading 3") && Catch::Contains("5.200 mA"));
+                      Catch::Contains("reading 3") && Catch::Contains("7.100 mA"));
 }

@@ -3,8 +3,8 @@
 #include "storage/backup.h"
 
 #include "storage/lab_repository.h"
-#include "storage/record_digest.h"
 #include "storage/schema.h"
+#include "storage/verification.h"
 #include "storage/workbook_error.h"
 #include "tests/storage/workbook_fixture.h"
 
@@ -107,27 +107,6 @@ TEST_CASE("automatic backups are taken when due and the oldest are pruned", "[ba
 
 namespace {
 
-// Approves one session so the backup has a record in its digest chain.
-std::int64_t approveOne(Workbook& workbook) {
-    const mwtest::Seed seed = mwtest::seed(workbook);
-    mw::CalibrationSession s = mwtest::draft(seed);
-    mw::storage::SessionRepository sessions(workbook);
-    sessions.create(s);
-    sessions.submit(s.id, mwtest::at(2025, 3, 5));
-    sessions.approve(s.id, seed.reviewer.id, mwtest::at(2025, 3, 6));
-    return s.id;
-}
-
-// Turns a current workbook back into one of schema version 1, as an older Meterwright wrote
-// it: the audit log of version 2 removed and the version number set back.
-void downgradeToVersionOne(const QString& path) {
-    mwtest::dropAllTriggers(path);
-    for (const char* statement :
-         {"DROP TABLE audit_log", "DROP TABLE audit_context", "PRAGMA user_version = 1"}) {
-        REQUIRE(mwtest::rawExec(path, QString::fromLatin1(statement)).isEmpty());
-    }
-}
-
 QStringList filesIn(const QTemporaryDir& dir) {
     return QDir(dir.path()).entryList(QDir::Files | QDir::Dirs | QDir::NoDotAndDotDot);
 }
@@ -212,15 +191,14 @@ TEST_CASE("a restore refuses a target that is a folder or lies in a missing fold
 TEST_CASE("an older-schema backup is upgraded in a copy and its chain checked", "[backup]") {
     mwtest::TempWorkbook temp;
     temp.open().reset();
+    // A backup written by an earlier version of the program (tests/storage/data/README.md).
     const QString backup = temp.dir.filePath(QStringLiteral("old.mwb"));
-    std::int64_t sessionId = 0;
-    {
-        mw::storage::OpenOptions create;
-        create.createIfMissing = true;
-        Workbook old(backup, create);
-        sessionId = approveOne(old);
-    }
-    downgradeToVersionOne(backup);
+    REQUIRE(QFile::copy(QStringLiteral(MW_OLD_WORKBOOKS_DIR "/workbook-v2.mwb"), backup));
+    QFile::setPermissions(backup, QFile::ReadOwner | QFile::WriteOwner);
+    const std::int64_t sessionId =
+        mwtest::rawValues(backup, "SELECT session_id FROM record_chain ORDER BY id LIMIT 1")
+            .front()
+            .toLongLong();
     const QByteArray backupBefore = mwtest::fileHash(backup);
 
     SECTION("a sound older backup is restored and upgraded when opened") {
@@ -231,6 +209,7 @@ TEST_CASE("an older-schema backup is upgraded in a copy and its chain checked", 
         CHECK(mw::storage::SessionRepository(restored).find(sessionId));
     }
     SECTION("a tampered older backup is refused") {
+        mwtest::dropAllTriggers(backup);
         REQUIRE(mwtest::rawExec(backup, QStringLiteral("UPDATE readings SET indicated = "
                                                        "indicated + 0.01 WHERE session_id = %1")
                                             .arg(sessionId))

@@ -10,6 +10,7 @@
 #include "storage/session_repository.h"
 #include "storage/standard_repository.h"
 #include "storage/user_repository.h"
+#include "storage/verification.h"
 #include "storage/workbook.h"
 #include "storage/workbook_error.h"
 #include "support/approx.h"

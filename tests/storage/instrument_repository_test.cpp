@@ -74,7 +74,8 @@ TEST_CASE("updating an instrument adds, changes and removes ranges", "[instrumen
     meter.location = "Store room";
     meter.ranges[0].full_scale = 12.0;
     meter.ranges.erase(meter.ranges.begin() + 1);
-    meter.ranges.push_back({0, "100 V", mw::Unit::Volt, 0.0, 100.0, 1998800.0, std::nullopt});
+    meter.ranges.push_back(
+        {0, "100 V", mw::Unit::Volt, 0.0, 100.0, 1998800.0, std::nullopt, mw::SignalType::Dc, {}});
     instruments.update(meter);
     CHECK(meter.ranges[1].id > 0);
     checkSame(*instruments.find(meter.id), meter);

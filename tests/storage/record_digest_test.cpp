@@ -1,6 +1,7 @@
 // Tamper evidence: the canonical record, the SHA-256 chain, and verification naming the first
 // record changed behind the app's back (triggers dropped, rows edited with raw SQL).
 #include "storage/record_digest.h"
+#include "storage/verification.h"
 
 #include "tests/storage/workbook_fixture.h"
 
@@ -43,8 +44,17 @@ TEST_CASE("the canonical record is independent of part order and sensitive to ev
     const mw::storage::RecordContext context{
         seed.instrument, mw::User{3, "tess", "Tess Bench", mw::Role::Technician, true},
         mw::User{4, "rory", "Rory Review", mw::Role::Reviewer, true}};
+    s.sealed = mw::SealedInputs{
+        {{7, mw::SignalType::Dc, std::nullopt, 198800.0, 50, mw::SpecRef{5, 0}, std::nullopt}},
+        {{5, 0,
+          mw::StandardRangeSpec{"20 V DC", mw::Unit::Volt, 20.0, 0.005, 0.001, 2e-5, std::nullopt,
+                                2.0, std::nullopt, mw::SignalKind::Dc}}}};
     const QByteArray text = canonicalRecord(s, context);
-    CHECK(text.startsWith("format=meterwright-record 1\nsession=12\n"));
+    CHECK(text.startsWith("format=meterwright-record 2\nsession=12\n"));
+    // The settings and the copies the verdict rests on (record format 2).
+    CHECK(text.contains("settings=0.2|0.9544997361036416|23\n"));
+    CHECK(text.contains("spec_copy=5|0|20 V DC|V|dc|20|0.005|0.001|2e-05|-|2|-\n"));
+    CHECK(text.contains("range_copy=7|dc|-|198800|50|5|0|-|-\n"));
     CHECK(text.contains("reading=7|0|up|as-found|1|V|2|2.05\n"));
     CHECK(text.contains("technician_signature=tess|Tess Bench\n"));
     CHECK(text.contains("reviewer_signature=rory|Rory Review\n"));
@@ -93,6 +103,27 @@ TEST_CASE("the canonical record is independent of part order and sensitive to ev
     other = context;
     other.instrument.reset();
     CHECK(canonicalRecord(s, other).contains("instrument_spec=missing\n"));
+
+    // Every sealed input changes the text.
+    mw::CalibrationSession resealed = s;
+    resealed.sealed->specs[0].spec.percent_of_reading = 0.006;
+    CHECK(canonicalRecord(resealed, context) != text);
+    resealed = s;
+    resealed.sealed->ranges[0].reference.reset();
+    CHECK(canonicalRecord(resealed, context) != text);
+    resealed = s;
+    resealed.settings->readability_fraction = 0.1;
+    CHECK(canonicalRecord(resealed, context) != text);
+
+    // A record sealed before the copies keeps its first format, word for word.
+    mw::CalibrationSession early = s;
+    early.record_format = mw::kRecordFormatWithoutInputs;
+    early.settings.reset();
+    early.sealed.reset();
+    const QByteArray first = canonicalRecord(early, context);
+    CHECK(first.startsWith("format=meterwright-record 1\nsession=12\n"));
+    CHECK_FALSE(first.contains("settings="));
+    CHECK_FALSE(first.contains("spec_copy="));
 }
 
 TEST_CASE("a digest is SHA-256 of the previous digest, a newline and the record", "[digest]") {
@@ -195,6 +226,53 @@ TEST_CASE("a record is superseded exactly when an approved amendment supersedes 
     }
 }
 
+TEST_CASE("a stored outcome that no longer follows from the sealed inputs is named", "[digest]") {
+    mwtest::TempWorkbook temp;
+    std::int64_t waiting = 0;
+    std::vector<std::int64_t> ids;
+    {
+        auto workbook = temp.open();
+        const mwtest::Seed seed = mwtest::seed(*workbook);
+        ids = approveThree(*workbook, seed);
+        mw::storage::SessionRepository sessions(*workbook);
+        mw::CalibrationSession s = mwtest::draft(seed, mwtest::at(2025, 2, 20));
+        sessions.create(s);
+        CHECK(sessions.submit(s.id, mwtest::at(2025, 2, 20, 15)) == mw::Outcome::Pass);
+        waiting = s.id;
+    }
+    {
+        mw::storage::Workbook workbook(temp.path());
+        const auto report = verifyWorkbook(workbook);
+        CHECK(report.sound());
+        CHECK(report.verdictsChecked == 4); // three approved, one waiting for review
+    }
+    mwtest::dropAllTriggers(temp.path());
+    SECTION("the outcome of a session waiting for review rewritten") {
+        REQUIRE(mwtest::rawExec(temp.path(), QStringLiteral("UPDATE calibration_sessions SET "
+                                                            "outcome = 'fail' WHERE id = %1")
+                                                 .arg(waiting))
+                    .isEmpty());
+        mw::storage::Workbook workbook(temp.path());
+        const auto report = verifyWorkbook(workbook);
+        CHECK(report.firstMismatchSessionId == waiting);
+        REQUIRE(report.firstMismatch);
+        CHECK(report.firstMismatch->contains(QStringLiteral("stored outcome \"fail\" no longer "
+                                                            "follows from its inputs, which give "
+                                                            "\"pass\"")));
+    }
+    SECTION("a reading of a waiting session pushed past the limit") {
+        REQUIRE(mwtest::rawExec(temp.path(), QStringLiteral("UPDATE readings SET indicated = "
+                                                            "applied + 0.5 WHERE session_id = %1 "
+                                                            "AND point_index = 2")
+                                                 .arg(waiting))
+                    .isEmpty());
+        mw::storage::Workbook workbook(temp.path());
+        const auto report = verifyWorkbook(workbook);
+        CHECK(report.firstMismatchSessionId == waiting);
+        CHECK(report.firstMismatch->contains(QStringLiteral("no longer follows")));
+    }
+}
+
 TEST_CASE("an edit behind the app's back names the first record that no longer matches",
           "[digest]") {
     mwtest::TempWorkbook temp;
@@ -224,7 +302,8 @@ TEST_CASE("an edit behind the app's back names the first record that no longer m
     }
     SECTION("an approved record set back to draft") {
         REQUIRE(mwtest::rawExec(temp.path(), QStringLiteral("UPDATE calibration_sessions SET "
-                                                            "state = 'draft' WHERE id = %1")
+                                                            "state = 'draft', outcome = NULL "
+                                                            "WHERE id = %1")
                                                  .arg(ids[2]))
                     .isEmpty());
         mw::storage::Workbook workbook(temp.path());
@@ -256,7 +335,7 @@ TEST_CASE("an edit behind the app's back names the first record that no longer m
         REQUIRE(mwtest::rawExec(
                     temp.path(),
                     QStringLiteral("UPDATE calibration_sessions SET state = "
-                                   "'approved', submitted_at = finished_at, "
+                                   "'approved', outcome = 'pass', submitted_at = finished_at, "
                                    "reviewer_id = (SELECT id FROM users WHERE login = 'rory'), "
                                    "approved_at = finished_at "
                                    "WHERE state = 'draft'"))
@@ -265,6 +344,27 @@ TEST_CASE("an edit behind the app's back names the first record that no longer m
         const auto report = verifyWorkbook(workbook);
         CHECK(report.recordsChecked == 3);
         CHECK(report.firstMismatch->contains(QStringLiteral("never sealed")));
+    }
+    SECTION("a copy of a standard's specification the record was sealed with changed") {
+        REQUIRE(mwtest::rawExec(temp.path(), QStringLiteral("UPDATE session_standard_specs SET "
+                                                            "percent_of_reading = 2 WHERE "
+                                                            "session_id = %1")
+                                                 .arg(ids[1]))
+                    .isEmpty());
+        mw::storage::Workbook workbook(temp.path());
+        const auto report = verifyWorkbook(workbook);
+        CHECK(report.firstMismatchSessionId == ids[1]);
+        CHECK(report.firstMismatch->contains(QStringLiteral("no longer match")));
+    }
+    SECTION("the reference chosen for a range in the record removed") {
+        REQUIRE(mwtest::rawExec(temp.path(), QStringLiteral("UPDATE session_ranges SET "
+                                                            "reference_standard_id = NULL, "
+                                                            "reference_sort_order = NULL WHERE "
+                                                            "session_id = %1")
+                                                 .arg(ids[2]))
+                    .isEmpty());
+        mw::storage::Workbook workbook(temp.path());
+        CHECK(verifyWorkbook(workbook).firstMismatchSessionId == ids[2]);
     }
     SECTION("the instrument's accuracy class changed") {
         REQUIRE(mwtest::rawExec(temp.path(), QStringLiteral("UPDATE instruments SET "

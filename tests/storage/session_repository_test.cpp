@@ -54,13 +54,15 @@ TEST_CASE("readings are saved by their key and can be removed", "[session]") {
     CHECK(sessions.readingCount() == std::int64_t(session.readings.size() - 1));
 
     session.environment = {21.0, 38.5};
-    session.outcome = mw::Outcome::ConditionalFail;
+    session.outcome = mw::Outcome::ConditionalFail; // never written: submit() computes it
     session.decision_rule = mw::DecisionRule::SimpleAcceptance;
     session.guard_factor = 0.0;
+    session.settings = mw::EvaluationSettings{0.1, 0.99, 20.0};
     sessions.updateDetails(session);
     read = sessions.find(session.id);
     CHECK(read->environment == mw::Environment{21.0, 38.5});
-    CHECK(read->outcome == mw::Outcome::ConditionalFail);
+    CHECK_FALSE(read->outcome);
+    CHECK(read->settings == mw::EvaluationSettings{0.1, 0.99, 20.0});
     sessions.addAdjustmentNote(session.id, {mwtest::at(2025, 3, 4, 12), "Span trimmed"});
     sessions.addResistorCheck(session.id,
                               {seed.instrument.ranges[1].id, "shunt", 63.16, 63.2, 0.5});

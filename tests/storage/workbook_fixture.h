@@ -71,6 +71,27 @@ inline QString rawExec(const QString& path, const QString& statement) {
     return error;
 }
 
+// The first column of every row a query on the file gives, as text (read on its own connection).
+inline QStringList rawValues(const QString& path, const char* query) {
+    static int counter = 0;
+    const QString name = QStringLiteral("raw-values-%1").arg(++counter);
+    QStringList values;
+    {
+        QSqlDatabase db = QSqlDatabase::addDatabase(QStringLiteral("QSQLITE"), name);
+        db.setDatabaseName(path);
+        if (db.open()) {
+            QSqlQuery q(db);
+            q.exec(QString::fromUtf8(query));
+            while (q.next()) {
+                values << q.value(0).toString();
+            }
+        }
+        db.close();
+    }
+    QSqlDatabase::removeDatabase(name);
+    return values;
+}
+
 // Drops every trigger, as a person editing the file with the sqlite3 shell could.
 inline void dropAllTriggers(const QString& path) {
     const QString name = QStringLiteral("raw-drop");
@@ -117,8 +138,10 @@ inline mw::Instrument demoInstrument(const std::string& tag = "VM-001") {
     i.kind = mw::InstrumentKind::MultiRange;
     i.movement = mw::Movement{50e-6, 1200.0};
     i.ranges = {
-        {0, "10 V", mw::Unit::Volt, 0.0, 10.0, 198800.0, std::nullopt},
-        {0, "1 mA", mw::Unit::Ampere, 0.0, 1e-3, 63.157894736842, 1e-3},
+        {0, "10 V", mw::Unit::Volt, 0.0, 10.0, 198800.0, std::nullopt, mw::SignalType::Dc,
+         std::nullopt},
+        {0, "1 mA", mw::Unit::Ampere, 0.0, 1e-3, 63.157894736842, 1e-3, mw::SignalType::Dc,
+         std::nullopt},
     };
     i.scale_type = mw::ScaleType::ZeroAtEnd;
     i.scale_divisions = 50;
@@ -145,7 +168,8 @@ inline Seed seed(mw::storage::Workbook& workbook) {
     s.standard.description = "Multifunction calibrator";
     s.standard.certificate_number = "CERT-2024-117";
     s.standard.due_date = date(2025, 6, 30);
-    s.standard.specs = {{"20 V DC", mw::Unit::Volt, 20.0, 0.005, 0.001, 2e-5, std::nullopt, 2.0}};
+    s.standard.specs = {{"20 V DC", mw::Unit::Volt, 20.0, 0.005, 0.001, 2e-5, std::nullopt, 2.0,
+                         std::nullopt, mw::SignalKind::Dc}};
     mw::storage::StandardRepository(workbook).add(s.standard);
     return s;
 }
@@ -162,7 +186,6 @@ inline mw::CalibrationSession draft(const Seed& s, mw::Timestamp started = at(20
     c.standards = {{s.standard.id, "", {}, ""}};
     c.decision_rule = mw::DecisionRule::GuardedAcceptance;
     c.guard_factor = 1.0;
-    c.outcome = mw::Outcome::Pass;
     const std::int64_t volts = s.instrument.ranges[0].id;
     for (int point = 0; point < 5; ++point) {
         const double applied = 2.0 * (point + 1);
