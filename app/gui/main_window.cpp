@@ -104,17 +104,20 @@ void MainWindow::buildRegister() {
 }
 
 bool MainWindow::openWorkbook(const QString& path, QString* error) {
+    std::unique_ptr<storage::Workbook> previous = std::move(workbook_);
     try {
-        auto opened = std::make_unique<storage::Workbook>(path);
-        workbook_ = std::move(opened);
-    } catch (const storage::WorkbookError& failure) {
+        workbook_ = std::make_unique<storage::Workbook>(path);
+        reloadRegister(); // reads every row the register shows: a value it cannot read fails here
+    } catch (const std::exception& failure) {
+        // The file stays as it was; the workbook open before stays open.
+        workbook_ = std::move(previous);
+        reloadRegisterQuietly();
         if (error != nullptr) {
-            *error = failure.message();
+            *error = QString::fromUtf8(failure.what());
         }
         return false;
     }
     setWindowTitle(tr("%1 — Meterwright").arg(QFileInfo(path).fileName()));
-    reloadRegister();
     const QString backupNote = takeAutomaticBackup();
     QString status = tr("Workbook %1: %2 instruments")
                          .arg(QFileInfo(path).fileName())
@@ -141,8 +144,8 @@ QString MainWindow::takeAutomaticBackup() {
             storage::backupIfDue(*workbook_, storage::BackupPolicy{}, QDateTime::currentDateTime());
         return written ? tr("automatic backup written (%1)").arg(QFileInfo(*written).fileName())
                        : QString();
-    } catch (const storage::WorkbookError& failure) {
-        return tr("automatic backup failed: %1").arg(failure.message());
+    } catch (const std::exception& failure) {
+        return tr("automatic backup failed: %1").arg(QString::fromUtf8(failure.what()));
     }
 }
 
@@ -170,8 +173,8 @@ void MainWindow::backUpNow() {
     try {
         storage::backupWorkbook(*workbook_, target);
         statusBar()->showMessage(tr("Backup written to %1").arg(target));
-    } catch (const storage::WorkbookError& failure) {
-        QMessageBox::warning(this, tr("Backup failed"), failure.message());
+    } catch (const std::exception& failure) {
+        QMessageBox::warning(this, tr("Backup failed"), QString::fromUtf8(failure.what()));
     }
 }
 
@@ -211,6 +214,17 @@ void MainWindow::reloadRegister() {
     }
 }
 
+void MainWindow::reloadRegisterQuietly() {
+    try {
+        reloadRegister();
+    } catch (const std::exception& failure) {
+        workbook_.reset();
+        instrumentModel_->setRows({});
+        statusBar()->showMessage(
+            tr("The workbook was closed: it could not be read (%1)").arg(failure.what()));
+    }
+}
+
 void MainWindow::showSelectedInstrument() {
     const QModelIndex current = instrumentView_->currentIndex();
     if (!workbook_ || !current.isValid()) {
@@ -218,7 +232,12 @@ void MainWindow::showSelectedInstrument() {
         return;
     }
     const auto id = instrumentModel_->rowAt(current.row()).instrumentId;
-    detailPanel_->showInstrument(storage::InstrumentRepository(*workbook_).find(id));
+    try {
+        detailPanel_->showInstrument(storage::InstrumentRepository(*workbook_).find(id));
+    } catch (const std::exception& failure) {
+        detailPanel_->showInstrument(std::nullopt);
+        statusBar()->showMessage(tr("This instrument could not be read: %1").arg(failure.what()));
+    }
 }
 
 void MainWindow::updateEmptyState() {

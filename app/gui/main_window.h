@@ -42,7 +42,9 @@ private:
     // Writes the daily automatic backup if one is due; returns what to tell the user.
     QString takeAutomaticBackup();
     void buildRegister();
+    // Throws what the workbook throws; reloadRegisterQuietly() closes the workbook instead.
     void reloadRegister();
+    void reloadRegisterQuietly();
     void showSelectedInstrument();
     void updateEmptyState();
 

@@ -12,8 +12,11 @@
 #include <catch2/catch.hpp>
 
 #include <QAbstractItemModelTester>
+#include <QFile>
 #include <QLabel>
 #include <QMenuBar>
+#include <QSqlDatabase>
+#include <QSqlQuery>
 #include <QStatusBar>
 #include <QTableView>
 #include <QTemporaryDir>
@@ -135,4 +138,31 @@ TEST_CASE("opening a workbook fills the register and selecting a row shows the d
     // Opening a writable workbook keeps the daily rolling backup beside it.
     CHECK(window.statusBar()->currentMessage().contains(QStringLiteral("automatic backup")));
     CHECK(mw::storage::automaticBackups(path, mw::storage::BackupPolicy{}).size() == 1);
+}
+
+TEST_CASE("a workbook the window cannot read is refused with the reason, the window stays") {
+    // An older workbook (tests/storage/data/README.md) whose draft has a start that is not a
+    // time, as a shell user could have left it: the upgrade refuses it naming the row.
+    QTemporaryDir dir;
+    const QString path = dir.filePath(QStringLiteral("broken.mwb"));
+    REQUIRE(QFile::copy(QStringLiteral(MW_OLD_WORKBOOKS_DIR "/workbook-v2.mwb"), path));
+    QFile::setPermissions(path, QFile::ReadOwner | QFile::WriteOwner);
+    {
+        QSqlDatabase db = QSqlDatabase::addDatabase(QStringLiteral("QSQLITE"), "breaker");
+        db.setDatabaseName(path);
+        REQUIRE(db.open());
+        REQUIRE(QSqlQuery(db).exec(QStringLiteral(
+            "UPDATE calibration_sessions SET started_at = 'not a time' WHERE state = 'draft'")));
+        db.close();
+    }
+    QSqlDatabase::removeDatabase(QStringLiteral("breaker"));
+    MainWindow window;
+    window.show();
+    QString error;
+    CHECK_FALSE(window.openWorkbook(path, &error));
+    CHECK(error.contains(QStringLiteral("table calibration_sessions")));
+    CHECK(error.contains(QStringLiteral("started_at")));
+    CHECK(window.workbook() == nullptr);
+    CHECK(window.isVisible());
+    CHECK(window.instrumentModel()->rowCount() == 0);
 }
