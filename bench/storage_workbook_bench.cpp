@@ -69,8 +69,9 @@ std::vector<mw::Reading> readingsOf(const mw::Instrument& instrument, int count,
         reading.direction = (i / 5) % 2 == 0 ? mw::Direction::Up : mw::Direction::Down;
         reading.repeat = 1 + i / 10;
         reading.unit = range.unit;
-        reading.indicated = range.full_scale * (reading.point_index + 1) / 5.0;
-        reading.applied = reading.indicated * (1.0 - drift + 1e-4 * (i % 7));
+        const double mark = range.full_scale * (reading.point_index + 1) / 5.0;
+        reading.indicated = mark;
+        reading.applied = mark * (1.0 - drift + 1e-4 * (i % 7));
         readings.push_back(reading);
     }
     return readings;
@@ -336,7 +337,7 @@ std::vector<Line> measureWrites(const QString& path, const Floor& baseline) {
         for (mw::Reading& reading : readings) {
             reading.applied *= 1.0001;
         }
-        sessions.saveReadings(saved[static_cast<std::size_t>(i)].id, readings);
+        sessions.putReadings(saved[static_cast<std::size_t>(i)].id, readings);
     });
     lines.push_back({"re-save the 40 readings of a draft", replaceMs, 20, insertFloorMs});
     const double approveMs = medianOf(21, [&](int i) {

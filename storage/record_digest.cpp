@@ -161,7 +161,7 @@ void writeParts(Writer& w, const CalibrationSession& s) {
                               std::string(toText(r.direction)) + '|' +
                               std::string(toText(r.phase)) + '|' + std::to_string(r.repeat) + '|' +
                               std::string(unitSymbol(r.unit)) + '|' + number(r.applied) + '|' +
-                              number(r.indicated));
+                              (r.indicated ? number(*r.indicated) : std::string("-")));
     }
     lines.clear();
     for (const ResistorCheck& c : s.resistor_checks) {
@@ -192,8 +192,17 @@ std::string refText(const std::optional<SpecRef>& ref) {
                : std::string("-|-");
 }
 
-// Format 2: the settings and the copies the verdict was computed from.
+// Format 2: the plan, the settings and the copies the verdict was computed from.
 void writeSealed(Writer& w, const CalibrationSession& s) {
+    w.line("phases", std::string(toText(s.phases)));
+    std::vector<TestPoint> plan = s.plan;
+    std::sort(plan.begin(), plan.end(), [](const TestPoint& a, const TestPoint& b) {
+        return std::tie(a.range_id, a.point_index) < std::tie(b.range_id, b.point_index);
+    });
+    for (const TestPoint& p : plan) {
+        w.line("point", std::to_string(p.range_id) + '|' + std::to_string(p.point_index) + '|' +
+                            number(p.nominal) + '|' + std::to_string(p.repeats));
+    }
     const EvaluationSettings settings = s.settings.value_or(EvaluationSettings{});
     w.line("settings", s.settings ? number(settings.readability_fraction) + '|' +
                                         number(settings.coverage_probability) + '|' +

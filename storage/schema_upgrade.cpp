@@ -1,8 +1,9 @@
 // The upgrade from schema version 2 to 3: every table is rebuilt STRICT with its new checks and
 // columns, the rows are copied across, and the triggers are created anew from the explicit
 // column lists. What version 2 did not record is marked as not recorded, never invented:
-// sessions sealed under version 2 keep record format 1 with no evaluation settings, and a range
-// whose signal type the instrument's kind does not settle is left without one.
+// sessions sealed under version 2 keep record format 1 with no evaluation settings and no plan
+// (their readings are their plan; the phases planned are those they hold), and a range whose
+// signal type the instrument's kind does not settle is left without one.
 #include "storage/schema_upgrade.h"
 
 #include "storage/schema.h"
@@ -71,6 +72,9 @@ const char* selectFor(const QString& table) {
                "CASE WHEN state = 'draft' THEN 0.95449973610364158 END, "
                "CASE WHEN state = 'draft' THEN 23.0 END, "
                "CASE WHEN state = 'draft' THEN 2 ELSE 1 END, "
+               "CASE WHEN EXISTS (SELECT 1 FROM v2_readings r WHERE r.session_id = "
+               "v2_calibration_sessions.id AND r.phase = 'as-left') THEN 'both' ELSE "
+               "'as-found' END, "
                "CASE WHEN state = 'draft' THEN NULL ELSE outcome END, state, submitted_at, "
                "return_comment, returned_at, reviewer_id, approved_at, revision, supersedes_id, "
                "amendment_reason, amended_at FROM v2_calibration_sessions";

@@ -124,6 +124,7 @@ std::vector<TableDefinition> makeTables() {
         reference_celsius REAL CHECK (reference_celsius IS NULL
                                       OR reference_celsius BETWEEN -40 AND 85),
         record_format INTEGER NOT NULL CHECK (record_format IN (1, 2)),
+        phases TEXT NOT NULL CHECK (phases IN ('as-found', 'as-left', 'both')),
         outcome TEXT CHECK (outcome IS NULL OR outcome IN ('pass', 'conditional-pass',
                                                            'conditional-fail', 'fail')),
         state TEXT NOT NULL CHECK (state IN ('draft', 'submitted', 'returned', 'approved',
@@ -169,6 +170,7 @@ std::vector<TableDefinition> makeTables() {
                   "coverage_probability",
                   "reference_celsius",
                   "record_format",
+                  "phases",
                   "outcome",
                   "state",
                   "submitted_at",
@@ -245,7 +247,19 @@ std::vector<TableDefinition> makeTables() {
           "diode_series_ohms", "diode_nominal_celsius", "diode_bandgap_ev",
           "diode_saturation_exponent", "resistor_ohms", "divisions", "reference_standard_id",
           "reference_sort_order", "shunt_standard_id", "shunt_sort_order"}});
-    // A reading is identified by its natural key and stored in that key's b-tree only.
+    // The test points a session plans for each range (each taken up and down, `repeats` times,
+    // in every phase planned). Records made before plans were kept have none.
+    t.push_back({"session_points",
+                 R"(CREATE TABLE session_points (
+        session_id INTEGER NOT NULL REFERENCES calibration_sessions (id) ON DELETE CASCADE,
+        range_id INTEGER NOT NULL REFERENCES instrument_ranges (id),
+        point_index INTEGER NOT NULL CHECK (point_index >= 0),
+        nominal REAL NOT NULL CHECK ({finite:nominal}),
+        repeats INTEGER NOT NULL CHECK (repeats BETWEEN 1 AND 20),
+        PRIMARY KEY (session_id, range_id, point_index)) STRICT, WITHOUT ROWID)",
+                 {"session_id", "range_id", "point_index", "nominal", "repeats"}});
+    // A reading is identified by its natural key and stored in that key's b-tree only. Its
+    // indication is NULL while only the applied value has been typed (a pending reading).
     t.push_back({"readings",
                  R"(CREATE TABLE readings (
         session_id INTEGER NOT NULL REFERENCES calibration_sessions (id) ON DELETE CASCADE,
@@ -256,7 +270,7 @@ std::vector<TableDefinition> makeTables() {
         repeat_number INTEGER NOT NULL CHECK (repeat_number >= 1),
         unit TEXT NOT NULL CHECK (unit IN ('V', 'A')),
         applied REAL NOT NULL CHECK ({finite:applied}),
-        indicated REAL NOT NULL CHECK ({finite:indicated}),
+        indicated REAL CHECK ({finite:indicated}),
         PRIMARY KEY (session_id, range_id, point_index, direction, phase, repeat_number))
         STRICT, WITHOUT ROWID)",
                  {"session_id", "range_id", "point_index", "direction", "phase", "repeat_number",

@@ -38,6 +38,7 @@ CalibrationSession sessionFrom(const QSqlQuery& q) {
     s.amended_at = sql::optionalTimestamp(q.value(20));
     s.digest = sql::toStd(q.value(21));
     s.record_format = q.value(25).toInt();
+    s.phases = sql::enumFrom<PhasePlan>(q.value(26), "calibration_sessions.phases");
     if (q.value(22).isNull() || q.value(23).isNull() || q.value(24).isNull()) {
         s.settings.reset(); // a record sealed before the settings were recorded
     } else {
@@ -64,6 +65,8 @@ void forEachPart(const QSqlDatabase& db, const QString& columns, const QString& 
         order = QStringLiteral("standard_id, sort_order");
     } else if (table == QLatin1String("session_ranges")) {
         order = QStringLiteral("range_id");
+    } else if (table == QLatin1String("session_points")) {
+        order = QStringLiteral("range_id, point_index");
     }
     QSqlQuery q = sql::prepare(
         db, QStringLiteral("SELECT session_id, %1 FROM %2 WHERE session_id IN (SELECT s.id FROM "
@@ -173,23 +176,32 @@ void loadParts(const QSqlDatabase& db, const QString& condition, const QVariant&
                     r.repeat = q.value(5).toInt();
                     r.unit = sql::unitFrom(q.value(6));
                     r.applied = q.value(7).toDouble();
-                    r.indicated = q.value(8).toDouble();
+                    if (!q.value(8).isNull()) {
+                        r.indicated = q.value(8).toDouble();
+                    }
                     s.readings.push_back(r);
                 });
     forEachPart(db,
                 QStringLiteral("range_id, component, computed_ohms, measured_ohms, "
-                               "tolerance_percent"),
+                               "tolerance_percent, id"),
                 QStringLiteral("resistor_checks"), condition, value, index,
                 [](CalibrationSession& s, const QSqlQuery& q) {
-                    s.resistor_checks.push_back({q.value(1).toLongLong(), sql::toStd(q.value(2)),
-                                                 q.value(3).toDouble(), q.value(4).toDouble(),
-                                                 q.value(5).toDouble()});
+                    s.resistor_checks.push_back({q.value(6).toLongLong(), q.value(1).toLongLong(),
+                                                 sql::toStd(q.value(2)), q.value(3).toDouble(),
+                                                 q.value(4).toDouble(), q.value(5).toDouble()});
                 });
-    forEachPart(
-        db, QStringLiteral("noted_at, note_text"), QStringLiteral("adjustment_notes"), condition,
-        value, index, [](CalibrationSession& s, const QSqlQuery& q) {
-            s.adjustments.push_back({sql::timestampFrom(q.value(1)), sql::toStd(q.value(2))});
-        });
+    forEachPart(db, QStringLiteral("range_id, point_index, nominal, repeats"),
+                QStringLiteral("session_points"), condition, value, index,
+                [](CalibrationSession& s, const QSqlQuery& q) {
+                    s.plan.push_back({q.value(1).toLongLong(), q.value(2).toInt(),
+                                      q.value(3).toDouble(), q.value(4).toInt()});
+                });
+    forEachPart(db, QStringLiteral("noted_at, note_text, id"), QStringLiteral("adjustment_notes"),
+                condition, value, index, [](CalibrationSession& s, const QSqlQuery& q) {
+                    s.adjustments.push_back({q.value(3).toLongLong(),
+                                             sql::timestampFrom(q.value(1)),
+                                             sql::toStd(q.value(2))});
+                });
     loadSealedParts(db, condition, value, index);
 }
 
@@ -204,7 +216,8 @@ std::vector<CalibrationSession> loadSessions(const QSqlDatabase& db, const QStri
                            "s.submitted_at, s.return_comment, s.returned_at, s.reviewer_id, "
                            "s.approved_at, s.revision, s.supersedes_id, s.amendment_reason, "
                            "s.amended_at, c.digest, s.readability_fraction, "
-                           "s.coverage_probability, s.reference_celsius, s.record_format FROM "
+                           "s.coverage_probability, s.reference_celsius, s.record_format, "
+                           "s.phases FROM "
                            "calibration_sessions s LEFT JOIN "
                            "record_chain c ON c.session_id = s.id WHERE %1 ORDER BY "
                            "s.started_at, s.id")

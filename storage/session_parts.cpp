@@ -40,42 +40,120 @@ void insertStandards(const QSqlDatabase& db, std::int64_t sessionId,
     }
 }
 
+namespace {
+
+QString readingContext(const Reading& r, std::int64_t sessionId) {
+    return QStringLiteral("saving reading %1 (%2, %3, repeat %4) of session %5")
+        .arg(r.point_index + 1)
+        .arg(sql::enumText(r.direction), sql::enumText(r.phase))
+        .arg(r.repeat)
+        .arg(sessionId);
+}
+
+// Binds the key columns of a reading in table order after its session.
+void bindKey(QSqlQuery& q, std::int64_t sessionId, const ReadingKey& key) {
+    q.addBindValue(qint64(sessionId));
+    q.addBindValue(qint64(key.range_id));
+    q.addBindValue(key.point_index);
+    q.addBindValue(sql::enumText(key.direction));
+    q.addBindValue(sql::enumText(key.phase));
+    q.addBindValue(key.repeat);
+}
+
+const QString kKeyCondition = QStringLiteral(
+    "session_id = ? AND range_id = ? AND point_index = ? AND direction = ? AND phase = ? AND "
+    "repeat_number = ?");
+
+} // namespace
+
 void insertReadings(const QSqlDatabase& db, std::int64_t sessionId,
                     const std::vector<Reading>& readings) {
-    // Portable upsert (SQLite 3.24+, PostgreSQL 9.5+) on the reading's natural key.
     QSqlQuery q = sql::prepare(
         db, QStringLiteral("INSERT INTO readings (session_id, range_id, point_index, direction, "
                            "phase, repeat_number, unit, applied, indicated) VALUES "
-                           "(?, ?, ?, ?, ?, ?, ?, ?, ?) ON CONFLICT (session_id, range_id, "
-                           "point_index, direction, phase, repeat_number) DO UPDATE SET unit = "
-                           "excluded.unit, applied = excluded.applied, indicated = "
-                           "excluded.indicated"));
+                           "(?, ?, ?, ?, ?, ?, ?, ?, ?)"));
     for (const Reading& r : readings) {
-        const QString context =
-            QStringLiteral("saving reading %1 (%2, %3, repeat %4) of session %5")
-                .arg(r.point_index)
-                .arg(sql::enumText(r.direction), sql::enumText(r.phase))
-                .arg(r.repeat)
-                .arg(sessionId);
-        q.addBindValue(qint64(sessionId));
-        q.addBindValue(qint64(r.range_id));
-        q.addBindValue(r.point_index);
-        q.addBindValue(sql::enumText(r.direction));
-        q.addBindValue(sql::enumText(r.phase));
-        q.addBindValue(r.repeat);
+        const QString context = readingContext(r, sessionId);
+        bindKey(q, sessionId, keyOf(r));
         q.addBindValue(sql::unitText(r.unit, context));
         q.addBindValue(r.applied);
-        q.addBindValue(r.indicated);
+        q.addBindValue(sql::nullableReal(r.indicated));
         sql::exec(q, context);
     }
 }
 
-void insertResistorCheck(const QSqlDatabase& db, std::int64_t sessionId,
-                         const ResistorCheck& check) {
+std::optional<Reading> findReading(const QSqlDatabase& db, std::int64_t sessionId,
+                                   const ReadingKey& key) {
+    QSqlQuery q = sql::prepare(
+        db, QStringLiteral("SELECT unit, applied, indicated FROM readings WHERE ") + kKeyCondition);
+    bindKey(q, sessionId, key);
+    sql::exec(q, QStringLiteral("reading a reading of session %1").arg(sessionId));
+    if (!q.next()) {
+        return std::nullopt;
+    }
+    Reading r;
+    r.range_id = key.range_id;
+    r.point_index = key.point_index;
+    r.direction = key.direction;
+    r.phase = key.phase;
+    r.repeat = key.repeat;
+    r.unit = sql::unitFrom(q.value(0));
+    r.applied = q.value(1).toDouble();
+    if (!q.value(2).isNull()) {
+        r.indicated = q.value(2).toDouble();
+    }
+    return r;
+}
+
+std::optional<Reading> putReading(const QSqlDatabase& db, std::int64_t sessionId,
+                                  const Reading& reading) {
+    const QString context = readingContext(reading, sessionId);
+    std::optional<Reading> previous = findReading(db, sessionId, keyOf(reading));
+    if (!previous) {
+        insertReadings(db, sessionId, {reading});
+        return previous;
+    }
+    QSqlQuery q = sql::prepare(
+        db, QStringLiteral("UPDATE readings SET unit = ?, applied = ?, indicated = ? WHERE ") +
+                kKeyCondition);
+    q.addBindValue(sql::unitText(reading.unit, context));
+    q.addBindValue(reading.applied);
+    q.addBindValue(sql::nullableReal(reading.indicated));
+    bindKey(q, sessionId, keyOf(reading));
+    sql::exec(q, context);
+    return previous;
+}
+
+void deleteReading(const QSqlDatabase& db, std::int64_t sessionId, const ReadingKey& key) {
+    QSqlQuery q = sql::prepare(db, QStringLiteral("DELETE FROM readings WHERE ") + kKeyCondition);
+    bindKey(q, sessionId, key);
+    sql::exec(q, QStringLiteral("removing a reading of session %1").arg(sessionId));
+}
+
+void insertPlan(const QSqlDatabase& db, std::int64_t sessionId,
+                const std::vector<TestPoint>& points) {
+    QSqlQuery q = sql::prepare(db, QStringLiteral("INSERT INTO session_points (session_id, "
+                                                  "range_id, point_index, nominal, repeats) "
+                                                  "VALUES (?, ?, ?, ?, ?)"));
+    for (const TestPoint& point : points) {
+        q.addBindValue(qint64(sessionId));
+        q.addBindValue(qint64(point.range_id));
+        q.addBindValue(point.point_index);
+        q.addBindValue(point.nominal);
+        q.addBindValue(point.repeats);
+        sql::exec(q, QStringLiteral("planning point %1 of range %2 in session %3")
+                         .arg(point.point_index + 1)
+                         .arg(point.range_id)
+                         .arg(sessionId));
+    }
+}
+
+std::int64_t insertResistorCheck(const QSqlDatabase& db, std::int64_t sessionId,
+                                 const ResistorCheck& check) {
     QSqlQuery q = sql::prepare(
         db, QStringLiteral("INSERT INTO resistor_checks (session_id, range_id, component, "
                            "computed_ohms, measured_ohms, tolerance_percent) VALUES "
-                           "(?, ?, ?, ?, ?, ?)"));
+                           "(?, ?, ?, ?, ?, ?) RETURNING id"));
     q.addBindValue(qint64(sessionId));
     q.addBindValue(qint64(check.range_id));
     q.addBindValue(QString::fromStdString(check.component));
@@ -85,108 +163,25 @@ void insertResistorCheck(const QSqlDatabase& db, std::int64_t sessionId,
     sql::exec(q, QStringLiteral("saving resistor check \"%1\" of session %2")
                      .arg(QString::fromStdString(check.component))
                      .arg(sessionId));
+    q.next();
+    const std::int64_t id = q.value(0).toLongLong();
+    q.finish();
+    return id;
 }
 
-void insertAdjustmentNote(const QSqlDatabase& db, std::int64_t sessionId,
-                          const AdjustmentNote& note) {
+std::int64_t insertAdjustmentNote(const QSqlDatabase& db, std::int64_t sessionId,
+                                  const AdjustmentNote& note) {
     QSqlQuery q = sql::prepare(db, QStringLiteral("INSERT INTO adjustment_notes (session_id, "
-                                                  "noted_at, note_text) VALUES (?, ?, ?)"));
+                                                  "noted_at, note_text) VALUES (?, ?, ?) "
+                                                  "RETURNING id"));
     q.addBindValue(qint64(sessionId));
     q.addBindValue(sql::toIso(note.at));
     q.addBindValue(QString::fromStdString(note.text));
     sql::exec(q, QStringLiteral("saving an adjustment note of session %1").arg(sessionId));
-}
-
-namespace {
-
-QVariant nullableInt(const std::optional<std::int64_t>& value) {
-    return value ? QVariant(qint64(*value)) : QVariant(QMetaType(QMetaType::LongLong));
-}
-
-void insertSpecCopies(const QSqlDatabase& db, std::int64_t sessionId,
-                      const std::vector<StandardSpecCopy>& specs) {
-    QSqlQuery q = sql::prepare(
-        db, QStringLiteral("INSERT INTO session_standard_specs (session_id, standard_id, "
-                           "sort_order, label, unit, signal, full_scale, percent_of_reading, "
-                           "percent_of_range, floor_value, certificate_expanded_uncertainty, "
-                           "coverage_factor, certificate_dof) VALUES "
-                           "(?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?)"));
-    for (const StandardSpecCopy& copy : specs) {
-        const QString context =
-            QStringLiteral("copying range \"%1\" of standard %2 into session %3")
-                .arg(QString::fromStdString(copy.spec.label))
-                .arg(copy.standard_id)
-                .arg(sessionId);
-        q.addBindValue(qint64(sessionId));
-        q.addBindValue(qint64(copy.standard_id));
-        q.addBindValue(copy.sort_order);
-        q.addBindValue(QString::fromStdString(copy.spec.label));
-        q.addBindValue(sql::unitText(copy.spec.unit, context));
-        q.addBindValue(sql::enumText(copy.spec.signal));
-        q.addBindValue(copy.spec.full_scale);
-        q.addBindValue(copy.spec.percent_of_reading);
-        q.addBindValue(copy.spec.percent_of_range);
-        q.addBindValue(copy.spec.floor);
-        q.addBindValue(sql::nullableReal(copy.spec.certificate_expanded_uncertainty));
-        q.addBindValue(copy.spec.coverage_factor);
-        q.addBindValue(sql::nullableReal(copy.spec.degrees_of_freedom));
-        sql::exec(q, context);
-    }
-}
-
-void insertRangeCopies(const QSqlDatabase& db, std::int64_t sessionId,
-                       const std::vector<RangeAsUsed>& ranges) {
-    QSqlQuery q = sql::prepare(
-        db, QStringLiteral("INSERT INTO session_ranges (session_id, range_id, signal, "
-                           "diode_saturation_amps, diode_emission_coefficient, "
-                           "diode_series_ohms, diode_nominal_celsius, diode_bandgap_ev, "
-                           "diode_saturation_exponent, resistor_ohms, divisions, "
-                           "reference_standard_id, reference_sort_order, shunt_standard_id, "
-                           "shunt_sort_order) VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, "
-                           "?)"));
-    for (const RangeAsUsed& range : ranges) {
-        const auto diode = [&range](double DiodeParameters::*field) {
-            return range.diode ? QVariant((*range.diode).*field)
-                               : QVariant(QMetaType(QMetaType::Double));
-        };
-        q.addBindValue(qint64(sessionId));
-        q.addBindValue(qint64(range.range_id));
-        q.addBindValue(sql::enumText(range.signal));
-        q.addBindValue(diode(&DiodeParameters::saturation_current_a));
-        q.addBindValue(diode(&DiodeParameters::emission_coefficient));
-        q.addBindValue(diode(&DiodeParameters::series_ohms));
-        q.addBindValue(diode(&DiodeParameters::nominal_celsius));
-        q.addBindValue(diode(&DiodeParameters::bandgap_ev));
-        q.addBindValue(diode(&DiodeParameters::saturation_temp_exponent));
-        q.addBindValue(sql::nullableReal(range.resistor_ohms));
-        q.addBindValue(range.divisions);
-        q.addBindValue(nullableInt(range.reference ? std::optional(range.reference->standard_id)
-                                                   : std::nullopt));
-        q.addBindValue(range.reference ? QVariant(range.reference->sort_order)
-                                       : QVariant(QMetaType(QMetaType::Int)));
-        q.addBindValue(nullableInt(range.reference_shunt
-                                       ? std::optional(range.reference_shunt->standard_id)
-                                       : std::nullopt));
-        q.addBindValue(range.reference_shunt ? QVariant(range.reference_shunt->sort_order)
-                                             : QVariant(QMetaType(QMetaType::Int)));
-        sql::exec(
-            q,
-            QStringLiteral("copying range %1 into session %2").arg(range.range_id).arg(sessionId));
-    }
-}
-
-} // namespace
-
-void replaceSealedInputs(const QSqlDatabase& db, std::int64_t sessionId,
-                         const SealedInputs& inputs) {
-    for (const char* table : {"session_ranges", "session_standard_specs"}) {
-        QSqlQuery del = sql::prepare(
-            db, QStringLiteral("DELETE FROM %1 WHERE session_id = ?").arg(QLatin1String(table)));
-        del.addBindValue(qint64(sessionId));
-        sql::exec(del, QStringLiteral("replacing the copies of session %1").arg(sessionId));
-    }
-    insertSpecCopies(db, sessionId, inputs.specs);
-    insertRangeCopies(db, sessionId, inputs.ranges);
+    q.next();
+    const std::int64_t id = q.value(0).toLongLong();
+    q.finish();
+    return id;
 }
 
 void requireOneRow(const QSqlQuery& query, std::int64_t sessionId) {

@@ -1,11 +1,13 @@
-// Inserting the parts of a calibration session; used by the repository and by amendments.
+// Writing the parts of a calibration session; used by the repository and by amendments.
 #pragma once
 
 #include "core/model/calibration.h"
+#include "core/plan/session_plan.h"
 
 #include <QSqlDatabase>
 #include <QSqlQuery>
 
+#include <optional>
 #include <vector>
 
 namespace mw::storage::detail {
@@ -14,13 +16,22 @@ namespace mw::storage::detail {
 // due date (the snapshot a record keeps).
 void insertStandards(const QSqlDatabase& db, std::int64_t sessionId,
                      const std::vector<StandardUse>& standards);
-// Inserts or replaces each reading by its key (range, point, direction, phase, repeat).
+// Inserts readings that are new to the session.
 void insertReadings(const QSqlDatabase& db, std::int64_t sessionId,
                     const std::vector<Reading>& readings);
-void insertResistorCheck(const QSqlDatabase& db, std::int64_t sessionId,
-                         const ResistorCheck& check);
-void insertAdjustmentNote(const QSqlDatabase& db, std::int64_t sessionId,
-                          const AdjustmentNote& note);
+std::optional<Reading> findReading(const QSqlDatabase& db, std::int64_t sessionId,
+                                   const ReadingKey& key);
+// Updates the reading with the same key, else inserts it; returns the one it replaced.
+std::optional<Reading> putReading(const QSqlDatabase& db, std::int64_t sessionId,
+                                  const Reading& reading);
+void deleteReading(const QSqlDatabase& db, std::int64_t sessionId, const ReadingKey& key);
+void insertPlan(const QSqlDatabase& db, std::int64_t sessionId,
+                const std::vector<TestPoint>& points);
+// Return the new row's id.
+std::int64_t insertResistorCheck(const QSqlDatabase& db, std::int64_t sessionId,
+                                 const ResistorCheck& check);
+std::int64_t insertAdjustmentNote(const QSqlDatabase& db, std::int64_t sessionId,
+                                  const AdjustmentNote& note);
 // The copies a session is sealed with: replaces any it holds.
 void replaceSealedInputs(const QSqlDatabase& db, std::int64_t sessionId,
                          const SealedInputs& inputs);

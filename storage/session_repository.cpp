@@ -24,6 +24,7 @@ void bindDetails(QSqlQuery& q, const CalibrationSession& s) {
     q.addBindValue(settings.readability_fraction);
     q.addBindValue(settings.coverage_probability);
     q.addBindValue(settings.reference_celsius);
+    q.addBindValue(sql::enumText(s.phases));
 }
 
 std::int64_t insertHeader(const QSqlDatabase& db, const CalibrationSession& s) {
@@ -31,10 +32,10 @@ std::int64_t insertHeader(const QSqlDatabase& db, const CalibrationSession& s) {
         db, QStringLiteral("INSERT INTO calibration_sessions (finished_at, ambient_celsius, "
                            "relative_humidity_percent, method, decision_rule, guard_factor, "
                            "readability_fraction, coverage_probability, reference_celsius, "
-                           "instrument_id, technician_id, started_at, state, return_comment, "
-                           "revision, supersedes_id, amendment_reason, amended_at, "
-                           "record_format) VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, 'draft', "
-                           "'', ?, ?, ?, ?, ?) RETURNING id"));
+                           "phases, instrument_id, technician_id, started_at, state, "
+                           "return_comment, revision, supersedes_id, amendment_reason, "
+                           "amended_at, record_format) VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, "
+                           "?, ?, 'draft', '', ?, ?, ?, ?, ?) RETURNING id"));
     bindDetails(q, s);
     q.addBindValue(qint64(s.instrument_id));
     q.addBindValue(qint64(s.technician_id));
@@ -70,12 +71,13 @@ void SessionRepository::create(CalibrationSession& session) {
     Transaction transaction(workbook_);
     const std::int64_t id = insertHeader(db, session);
     detail::insertStandards(db, id, session.standards);
+    detail::insertPlan(db, id, session.plan);
     detail::insertReadings(db, id, session.readings);
-    for (const ResistorCheck& check : session.resistor_checks) {
-        detail::insertResistorCheck(db, id, check);
+    for (ResistorCheck& check : session.resistor_checks) {
+        check.id = detail::insertResistorCheck(db, id, check);
     }
-    for (const AdjustmentNote& note : session.adjustments) {
-        detail::insertAdjustmentNote(db, id, note);
+    for (AdjustmentNote& note : session.adjustments) {
+        note.id = detail::insertAdjustmentNote(db, id, note);
     }
     if (session.sealed) {
         detail::replaceSealedInputs(db, id, *session.sealed);
@@ -91,7 +93,7 @@ void SessionRepository::updateDetails(const CalibrationSession& session) {
         QStringLiteral("UPDATE calibration_sessions SET finished_at = ?, ambient_celsius = ?, "
                        "relative_humidity_percent = ?, method = ?, decision_rule = ?, "
                        "guard_factor = ?, readability_fraction = ?, coverage_probability = ?, "
-                       "reference_celsius = ? WHERE id = ?"));
+                       "reference_celsius = ?, phases = ? WHERE id = ?"));
     bindDetails(q, session);
     q.addBindValue(qint64(session.id));
     sql::exec(q, QStringLiteral("saving calibration session %1").arg(session.id));
@@ -135,44 +137,6 @@ void SessionRepository::setStandards(std::int64_t sessionId, std::vector<Standar
         }
     }
     detail::insertStandards(db, sessionId, added);
-    transaction.commit();
-}
-
-void SessionRepository::saveReading(std::int64_t sessionId, const Reading& reading) {
-    saveReadings(sessionId, {reading});
-}
-
-void SessionRepository::saveReadings(std::int64_t sessionId, const std::vector<Reading>& readings) {
-    Transaction transaction(workbook_);
-    detail::insertReadings(workbook_.database(), sessionId, readings);
-    transaction.commit();
-}
-
-void SessionRepository::removeReading(std::int64_t sessionId, const Reading& key) {
-    Transaction transaction(workbook_);
-    QSqlQuery q = sql::prepare(workbook_.database(),
-                               QStringLiteral("DELETE FROM readings WHERE session_id = ? AND "
-                                              "range_id = ? AND point_index = ? AND direction = "
-                                              "? AND phase = ? AND repeat_number = ?"));
-    q.addBindValue(qint64(sessionId));
-    q.addBindValue(qint64(key.range_id));
-    q.addBindValue(key.point_index);
-    q.addBindValue(sql::enumText(key.direction));
-    q.addBindValue(sql::enumText(key.phase));
-    q.addBindValue(key.repeat);
-    sql::exec(q, QStringLiteral("removing a reading of session %1").arg(sessionId));
-    transaction.commit();
-}
-
-void SessionRepository::addResistorCheck(std::int64_t sessionId, const ResistorCheck& check) {
-    Transaction transaction(workbook_);
-    detail::insertResistorCheck(workbook_.database(), sessionId, check);
-    transaction.commit();
-}
-
-void SessionRepository::addAdjustmentNote(std::int64_t sessionId, const AdjustmentNote& note) {
-    Transaction transaction(workbook_);
-    detail::insertAdjustmentNote(workbook_.database(), sessionId, note);
     transaction.commit();
 }
 

@@ -108,6 +108,18 @@ Outcome SessionRepository::submit(std::int64_t sessionId, Timestamp at) {
                                 .arg(sql::enumText(session.state)));
     }
     const Instrument instrument = instrumentOf(session);
+    const std::vector<ReadingKey> missing = missingReadings(instrument, session);
+    if (!missing.empty()) {
+        throw WorkbookError(
+            Kind::RuleViolation,
+            QStringLiteral("cannot submit calibration session %1: %2 of the plan %3 not taken: "
+                           "%4")
+                .arg(sessionId)
+                .arg(missing.size() == 1 ? QStringLiteral("one reading")
+                                         : QStringLiteral("%1 readings").arg(missing.size()))
+                .arg(missing.size() == 1 ? QStringLiteral("was") : QStringLiteral("were"))
+                .arg(QString::fromStdString(describeMissing(instrument, session, missing))));
+    }
     const std::vector<ReferenceStandard> standards = StandardRepository(workbook_).all();
     const bool amendment = session.supersedes_id.has_value();
     if (!amendment) {

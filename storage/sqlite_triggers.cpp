@@ -13,9 +13,9 @@ namespace {
 const QString kEditable = QStringLiteral("('draft', 'returned')");
 
 // The parts of a calibration session: frozen together with their session.
-const char* const kSessionParts[] = {"session_standards", "session_standard_specs",
-                                     "session_ranges",    "readings",
-                                     "resistor_checks",   "adjustment_notes"};
+const char* const kSessionParts[] = {
+    "session_standards", "session_standard_specs", "session_ranges",  "session_points",
+    "readings",          "resistor_checks",        "adjustment_notes"};
 
 QString stateOf(const QString& sessionIdExpression) {
     return QStringLiteral("(SELECT state FROM calibration_sessions WHERE id = %1)")
@@ -96,6 +96,14 @@ void createSessionStateTriggers(const QSqlDatabase& db) {
                 "length(trim(u.overdue_justification)) = 0) BEGIN SELECT RAISE(ABORT, "
                 "'calibration_sessions: a reference standard used is past its due date and no "
                 "justification is recorded'); END"));
+    // A session is submitted with every reading complete: one whose indication was never typed
+    // is no observation.
+    run(db, QStringLiteral(
+                "CREATE TRIGGER sessions_complete_on_submit BEFORE UPDATE OF state ON "
+                "calibration_sessions WHEN NEW.state = 'submitted' AND OLD.state <> 'submitted' "
+                "AND EXISTS (SELECT 1 FROM readings r WHERE r.session_id = NEW.id AND "
+                "r.indicated IS NULL) BEGIN SELECT RAISE(ABORT, 'calibration_sessions: a reading "
+                "without its indication cannot be submitted'); END"));
     // A session is submitted with a copy of every range it has readings on (what its verdict
     // was computed from), unless it is a record of the format that predates the copies.
     run(db, QStringLiteral(
@@ -151,7 +159,7 @@ void createRecordTriggers(const QSqlDatabase& db) {
     run(db, QStringLiteral("CREATE TRIGGER readings_range_matches_update BEFORE UPDATE ON "
                            "readings WHEN %1")
                 .arg(readingRange));
-    for (const char* table : {"resistor_checks", "session_ranges"}) {
+    for (const char* table : {"resistor_checks", "session_ranges", "session_points"}) {
         run(db, QStringLiteral(
                     "CREATE TRIGGER %1_range_matches BEFORE INSERT ON %1 WHEN NOT EXISTS (SELECT "
                     "1 FROM instrument_ranges r JOIN calibration_sessions s ON s.instrument_id = "

@@ -73,11 +73,9 @@ struct TableKey {
     QStringList columns;
 };
 
-// Every PRIMARY KEY and UNIQUE constraint of the tables of schema_v3.cpp. The readings key is
-// left out: it starts with session_id, so a reading that would be replaced belongs to
-// NEW.session_id, which readings_frozen_insert/_update already require to be a draft or
-// returned; and the app saves readings with ON CONFLICT DO UPDATE, which fires BEFORE INSERT
-// triggers first, so refusing an existing key there would refuse every re-save.
+// Every PRIMARY KEY and UNIQUE constraint of the tables of schema_v3.cpp. Rows are saved by
+// updating the existing row, then inserting a new one: never by an upsert, whose BEFORE INSERT
+// triggers would refuse every re-save.
 std::vector<TableKey> recordKeys() {
     auto key = [](const char* table, std::initializer_list<const char*> columns) {
         TableKey k{table, {}};
@@ -104,6 +102,9 @@ std::vector<TableKey> recordKeys() {
         key("session_standards", {"session_id", "standard_id"}),
         key("session_standard_specs", {"session_id", "standard_id", "sort_order"}),
         key("session_ranges", {"session_id", "range_id"}),
+        key("session_points", {"session_id", "range_id", "point_index"}),
+        key("readings",
+            {"session_id", "range_id", "point_index", "direction", "phase", "repeat_number"}),
         key("resistor_checks", {"id"}),
         key("adjustment_notes", {"id"}),
         key("record_chain", {"id"}),
@@ -149,21 +150,6 @@ void createKeyTriggersFor(const QSqlDatabase& db, const TableKey& key) {
                      sameKey(key.columns), raise));
 }
 
-// The reading key may not move onto another reading of the same (editable) session either: the
-// replaced reading would vanish without an audit entry.
-void createReadingKeyTrigger(const QSqlDatabase& db) {
-    QStringList key;
-    for (const char* column :
-         {"session_id", "range_id", "point_index", "direction", "phase", "repeat_number"}) {
-        key << QLatin1String(column);
-    }
-    run(db, QStringLiteral("CREATE TRIGGER readings_key_kept_on_update BEFORE UPDATE OF %1 ON "
-                           "readings WHEN %2 AND EXISTS (SELECT 1 FROM readings k WHERE %3) BEGIN "
-                           "SELECT RAISE(ABORT, 'readings: a reading with this key already "
-                           "exists; rows are never replaced'); END")
-                .arg(key.join(QStringLiteral(", ")), anyChanged(key), sameKey(key)));
-}
-
 } // namespace
 
 void createAuditTriggers(const QSqlDatabase& db) {
@@ -182,7 +168,6 @@ void createKeyTriggers(const QSqlDatabase& db) {
     for (const TableKey& key : recordKeys()) {
         createKeyTriggersFor(db, key);
     }
-    createReadingKeyTrigger(db);
 }
 
 } // namespace mw::storage::dialect

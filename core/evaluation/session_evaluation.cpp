@@ -5,6 +5,7 @@
 #include "core/circuits/coil_temperature.h"
 #include "core/circuits/hazard.h"
 #include "core/circuits/rectifier_meter.h"
+#include "core/plan/session_plan.h"
 
 #include <algorithm>
 #include <cmath>
@@ -35,19 +36,10 @@ std::set<std::int64_t> rangesWithWork(const CalibrationSession& session) {
     for (const ResistorCheck& c : session.resistor_checks) {
         ids.insert(c.range_id);
     }
-    return ids;
-}
-
-InstrumentKind kindOf(SignalType signal, Unit unit) {
-    switch (signal) {
-    case SignalType::HalfWave:
-        return InstrumentKind::HalfWaveAcVoltmeter;
-    case SignalType::Bridge:
-        return InstrumentKind::BridgeAcVoltmeter;
-    case SignalType::Dc:
-        break;
+    for (const TestPoint& p : session.plan) {
+        ids.insert(p.range_id);
     }
-    return unit == Unit::Ampere ? InstrumentKind::DcAmmeter : InstrumentKind::DcVoltmeter;
+    return ids;
 }
 
 // The copper coil with its multiplier (voltmeter) or behind its shunt (ammeter), the resistors
@@ -114,7 +106,8 @@ std::optional<std::string> hazardOf(const Instrument& instrument, const Calibrat
                                                return r.id == reading.range_id && r.signal &&
                                                       *r.signal != SignalType::Dc;
                                            });
-        const double value = std::max(std::fabs(reading.applied), std::fabs(reading.indicated));
+        const double value =
+            std::max(std::fabs(reading.applied), std::fabs(reading.indicated.value_or(0.0)));
         if (auto caution = hazardCaution(value, ac ? VoltageKind::AcRms : VoltageKind::Dc)) {
             return caution;
         }
@@ -193,7 +186,7 @@ EvaluationInput evaluationInputFor(const Instrument& instrument, const RangeSpec
     }
     const EvaluationSettings settings = session.settings.value_or(EvaluationSettings{});
     EvaluationInput input;
-    input.kind = kindOf(used->signal, range.unit);
+    input.kind = rangeKind(used->signal, range.unit);
     input.phase = phase;
     input.unit = range.unit;
     input.range = ScaleRange{range.lower_limit, range.full_scale, instrument.scale_type,
@@ -223,9 +216,9 @@ EvaluationInput evaluationInputFor(const Instrument& instrument, const RangeSpec
         }
     }
     for (const Reading& r : session.readings) {
-        if (r.range_id == range.id && r.phase == phase) {
+        if (r.range_id == range.id && r.phase == phase && r.indicated) {
             input.readings.push_back(
-                {r.applied, r.indicated, r.direction, r.repeat, r.point_index});
+                {r.applied, *r.indicated, r.direction, r.repeat, r.point_index});
         }
     }
     input.predictedError = predictedCurve(instrument, range, *used, ambient, input.readings);
@@ -250,8 +243,9 @@ SessionEvaluation evaluateSession(const Instrument& instrument, const Calibratio
         std::optional<Outcome> last;
         for (Phase phase : {Phase::AsFound, Phase::AsLeft}) {
             const bool measured = std::any_of(
-                session.readings.begin(), session.readings.end(),
-                [&](const Reading& r) { return r.range_id == range.id && r.phase == phase; });
+                session.readings.begin(), session.readings.end(), [&](const Reading& r) {
+                    return r.range_id == range.id && r.phase == phase && r.indicated;
+                });
             if (!measured) {
                 continue;
             }

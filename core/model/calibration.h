@@ -19,7 +19,9 @@ namespace mw {
 using Timestamp = std::chrono::sys_seconds; // UTC, whole seconds
 
 // One observation at one test point. `applied` is what the standard delivered, `indicated` what
-// the instrument under test showed; both in `unit`, which must be the unit of the range.
+// the instrument under test showed; both in `unit`, which must be the unit of the range. A
+// reading whose indication has not been typed yet (the applied value was) is pending: it is
+// saved so that nothing typed is lost, is no observation, and stops a submission.
 struct Reading {
     std::int64_t range_id = 0; // RangeSpec::id of the instrument
     int point_index = 0;       // 0-based position of the test point in the plan
@@ -28,13 +30,26 @@ struct Reading {
     int repeat = 1; // 1-based repeat number at the same point, direction and phase
     Unit unit = Unit::Volt;
     double applied = 0.0;
-    double indicated = 0.0;
+    std::optional<double> indicated;
 
     bool operator==(const Reading&) const = default;
 };
 
+// One planned test point of a range: taken up-scale and down-scale, `repeats` times each, in
+// every phase the session plans. `point_index` identifies it (readings refer to it); the nominal
+// value is where it is taken, in the range's unit.
+struct TestPoint {
+    std::int64_t range_id = 0;
+    int point_index = 0;
+    double nominal = 0.0;
+    int repeats = 1;
+
+    bool operator==(const TestPoint&) const = default;
+};
+
 // A multiplier or shunt resistor measured against its designed (computed) value.
 struct ResistorCheck {
+    std::int64_t id = 0; // assigned by the workbook; 0 until saved
     std::int64_t range_id = 0;
     std::string component; // e.g. "R3 multiplier"
     double computed_ohms = 0.0;
@@ -45,6 +60,7 @@ struct ResistorCheck {
 };
 
 struct AdjustmentNote {
+    std::int64_t id = 0; // assigned by the workbook; 0 until saved
     Timestamp at{};
     std::string text;
 
@@ -161,6 +177,11 @@ struct CalibrationSession {
     std::optional<std::int64_t> supersedes_id; // the approved session this revision amends
     std::string amendment_reason;
     std::optional<Timestamp> amended_at; // when this amending revision was started
+
+    // The test points of each range (empty for a record made before plans were kept: its
+    // readings are then its plan) and the phases planned.
+    std::vector<TestPoint> plan;
+    PhasePlan phases = PhasePlan::AsFound;
 
     std::vector<Reading> readings;
     std::vector<ResistorCheck> resistor_checks;

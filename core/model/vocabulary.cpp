@@ -31,6 +31,11 @@ constexpr Words<SignalType, 3> kSignalTypes{{
 constexpr Words<SignalKind, 2> kSignalKinds{{{SignalKind::Dc, "dc"}, {SignalKind::Ac, "ac"}}};
 constexpr Words<Direction, 2> kDirections{{{Direction::Up, "up"}, {Direction::Down, "down"}}};
 constexpr Words<Phase, 2> kPhases{{{Phase::AsFound, "as-found"}, {Phase::AsLeft, "as-left"}}};
+constexpr Words<PhasePlan, 3> kPhasePlans{{
+    {PhasePlan::AsFound, "as-found"},
+    {PhasePlan::AsLeft, "as-left"},
+    {PhasePlan::AsFoundAndAsLeft, "both"},
+}};
 constexpr Words<SessionState, 5> kSessionStates{{
     {SessionState::Draft, "draft"},
     {SessionState::Submitted, "submitted"},
@@ -99,6 +104,9 @@ std::string_view toText(Direction value) {
 std::string_view toText(Phase value) {
     return lookup(kPhases, value);
 }
+std::string_view toText(PhasePlan value) {
+    return lookup(kPhasePlans, value);
+}
 std::string_view toText(SessionState value) {
     return lookup(kSessionStates, value);
 }
@@ -138,6 +146,10 @@ std::optional<Direction> fromText(std::string_view text) {
 template <>
 std::optional<Phase> fromText(std::string_view text) {
     return reverseLookup(kPhases, text);
+}
+template <>
+std::optional<PhasePlan> fromText(std::string_view text) {
+    return reverseLookup(kPhasePlans, text);
 }
 template <>
 std::optional<SessionState> fromText(std::string_view text) {
@@ -212,6 +224,30 @@ SignalKind kindOf(SignalType signal) {
 
 std::string_view displayName(Phase value) {
     return value == Phase::AsFound ? "As-found" : "As-left";
+}
+
+std::string_view displayName(PhasePlan value) {
+    switch (value) {
+    case PhasePlan::AsFound:
+        return "As-found only";
+    case PhasePlan::AsLeft:
+        return "As-left only";
+    case PhasePlan::AsFoundAndAsLeft:
+        return "As-found and as-left";
+    }
+    return "?";
+}
+
+std::vector<Phase> phasesOf(PhasePlan plan) {
+    switch (plan) {
+    case PhasePlan::AsFound:
+        return {Phase::AsFound};
+    case PhasePlan::AsLeft:
+        return {Phase::AsLeft};
+    case PhasePlan::AsFoundAndAsLeft:
+        break;
+    }
+    return {Phase::AsFound, Phase::AsLeft};
 }
 
 std::string_view displayName(SessionState value) {

@@ -4,6 +4,7 @@
 
 #include <optional>
 #include <string_view>
+#include <vector>
 
 namespace mw {
 
@@ -34,6 +35,10 @@ enum class Direction { Up, Down };
 
 enum class Phase { AsFound, AsLeft };
 
+// Which phases a calibration plans: as-found alone (no adjustment expected), as-left alone (a
+// meter calibrated after repair), or both.
+enum class PhasePlan { AsFound, AsLeft, AsFoundAndAsLeft };
+
 enum class SessionState { Draft, Submitted, Returned, Approved, Superseded };
 
 enum class Role { Technician, Reviewer, Administrator };
@@ -54,6 +59,7 @@ std::string_view toText(SignalType value);
 std::string_view toText(SignalKind value);
 std::string_view toText(Direction value);
 std::string_view toText(Phase value);
+std::string_view toText(PhasePlan value);
 std::string_view toText(SessionState value);
 std::string_view toText(Role value);
 std::string_view toText(InstrumentStatus value);
@@ -70,6 +76,9 @@ std::string_view displayName(ScaleType value);
 std::string_view displayName(SignalType value);
 std::string_view displayName(SignalKind value);
 std::string_view displayName(Phase value);
+std::string_view displayName(PhasePlan value);
+// The phases of a plan in the order they are taken.
+std::vector<Phase> phasesOf(PhasePlan plan);
 std::string_view displayName(SessionState value);
 std::string_view displayName(Outcome value);
 std::string_view displayName(DecisionRule value);

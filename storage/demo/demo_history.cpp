@@ -76,7 +76,8 @@ double worstErrorFraction(const Instrument& instrument, const std::vector<Readin
         }
         for (const RangeSpec& range : instrument.ranges) {
             if (range.id == reading.range_id) {
-                const double error = std::fabs(reading.indicated - reading.applied);
+                const double error =
+                    std::fabs(reading.indicated.value_or(reading.applied) - reading.applied);
                 worst = std::max(worst, error / limitOf(instrument, range));
             }
         }
@@ -197,13 +198,13 @@ void MeterSimulation::adjust(Timestamp at, const std::vector<Reading>& asFound,
     }
     const RangeSpec& range = instrument_.ranges[worstRange];
     const double fiducial = fiducialValue(scaleOf(instrument_, range));
-    const double error_pct = (worst->indicated - worst->applied) / fiducial * 100.0;
+    const double error_pct = (*worst->indicated - worst->applied) / fiducial * 100.0;
     const bool outOfTolerance = std::fabs(error_pct) > class_;
     std::string text = std::string(outOfTolerance ? "Out of tolerance as found"
                                                   : "Within tolerance as found but close to the "
                                                     "limit, adjusted to last the interval") +
                        ": largest error " + percentText(error_pct) + " of the fiducial value at " +
-                       valueText(worst->indicated, range.unit) +
+                       valueText(*worst->indicated, range.unit) +
                        (worst->direction == Direction::Up ? " up-scale" : " down-scale") +
                        " on the " + range.label + " range (limit +/-" +
                        percentText(class_).substr(1) + "). ";
@@ -223,7 +224,7 @@ void MeterSimulation::adjust(Timestamp at, const std::vector<Reading>& asFound,
     for (RangeState& state : ranges_) {
         state.span_pct *= 0.3;
     }
-    content.adjustments.push_back(AdjustmentNote{at, text});
+    content.adjustments.push_back(AdjustmentNote{0, at, text});
 }
 
 SessionContent MeterSimulation::calibrate(Timestamp start, bool firstVisit) {
@@ -253,7 +254,7 @@ SessionContent MeterSimulation::calibrateDamaged(Timestamp start) {
     SessionContent content;
     content.readings = run(Phase::AsFound);
     content.adjustments.push_back(AdjustmentNote{
-        start + std::chrono::minutes(30),
+        0, start + std::chrono::minutes(30),
         "Pointer hangs between 40 % and 60 % of the scale and reads far high there; the lower "
         "pivot jewel is cracked. Not adjustable on the bench: withdrawn from service and "
         "labelled, repair quotation sent to the owner."});

@@ -5,6 +5,8 @@
 // approval, one meter withdrawn with a damaged pivot, one retired, one overdue on loan.
 #include "storage/demo/demo_schedule.h"
 
+#include "core/plan/session_plan.h"
+
 #include "core/units/quantity.h"
 #include "storage/demo/demo_catalogue.h"
 #include "storage/demo/demo_history.h"
@@ -175,8 +177,8 @@ PlannedAmendment slipOfThePen(CalibrationSession& session, const Instrument& ins
     const double limit = instrument.accuracy_class / 100.0 * instrument.ranges.front().full_scale;
     it->applied = it->applied + 0.2 * limit;
     amendment.reason = "As-found applied value at " +
-                       formatEngineering(it->indicated, 3, it->unit) + " up-scale was entered as " +
-                       formatEngineering(it->applied, 5, it->unit) +
+                       formatEngineering(*it->indicated, 3, it->unit) +
+                       " up-scale was entered as " + formatEngineering(it->applied, 5, it->unit) +
                        "; the bench worksheet shows " +
                        formatEngineering(amendment.corrected.applied, 5, it->unit) +
                        ". Corrected; the outcome is unchanged.";
@@ -231,6 +233,14 @@ PlannedSession visit(const Instrument& instrument, std::size_t index, MeterSimul
     }
     session.standards = standardsFor(instrument, content, standards, day);
     session.readings = std::move(content.readings);
+    // Every range on its default points, up and down; both phases where the meter was adjusted.
+    for (const RangeSpec& range : instrument.ranges) {
+        const std::vector<TestPoint> points = defaultPoints(instrument, range);
+        session.plan.insert(session.plan.end(), points.begin(), points.end());
+    }
+    const bool adjusted = std::any_of(session.readings.begin(), session.readings.end(),
+                                      [](const Reading& r) { return r.phase == Phase::AsLeft; });
+    session.phases = adjusted ? PhasePlan::AsFoundAndAsLeft : PhasePlan::AsFound;
     session.resistor_checks = std::move(content.resistor_checks);
     session.adjustments = std::move(content.adjustments);
     if (planned.fate != Fate::Draft) {

@@ -225,7 +225,7 @@ private:
         const std::int64_t revisionId =
             sessions_.amend(ids_[index], people_.technician,
                             QString::fromStdString(amendment.reason), amendment.started_at);
-        sessions_.saveReading(revisionId, amendment.corrected);
+        sessions_.putReading(revisionId, amendment.corrected);
         sessions_.submit(revisionId, amendment.submitted_at);
         transaction.commit();
         revisionIds_[index] = revisionId;

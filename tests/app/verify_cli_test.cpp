@@ -52,7 +52,9 @@ std::int64_t writeWorkbook(const QString& path) {
         s.technician_id = tech.id;
         s.started_at = day(d, 9);
         s.readings = {{meter.ranges[0].id, 0, mw::Direction::Up, mw::Phase::AsFound, 1,
-                       mw::Unit::Volt, 5.0, 5.04}};
+                       mw::Unit::Volt, 5.0, 5.04},
+                      {meter.ranges[0].id, 0, mw::Direction::Down, mw::Phase::AsFound, 1,
+                       mw::Unit::Volt, 5.0, 5.05}};
         sessions.create(s);
         sessions.submit(s.id, day(d, 11));
         sessions.approve(s.id, reviewer.id, day(d, 15));
@@ -71,7 +73,7 @@ void tamper(const QString& path, std::int64_t sessionId) {
         QSqlQuery(db).exec(QStringLiteral("DROP TRIGGER readings_range_matches_update"));
         QSqlQuery update(db);
         REQUIRE(update.exec(QStringLiteral("UPDATE readings SET indicated = 5.00 WHERE "
-                                           "session_id = %1")
+                                           "session_id = %1 AND direction = 'up'")
                                 .arg(sessionId)));
         REQUIRE(update.numRowsAffected() == 1);
         db.close();

@@ -35,7 +35,7 @@ TEST_CASE("every write is audited with its user and values", "[audit]") {
     sessions.create(session);
     mw::Reading changed = session.readings[4];
     changed.indicated = 6.5;
-    sessions.saveReading(session.id, changed);
+    sessions.putReading(session.id, changed);
     const auto readings = audit.entries(QStringLiteral("readings"));
     REQUIRE(readings.size() == session.readings.size() + 1);
     const auto& update = readings.back();
@@ -43,7 +43,7 @@ TEST_CASE("every write is audited with its user and values", "[audit]") {
     CHECK(update.user_id == seed.technician.id);
     const QJsonObject before = QJsonDocument::fromJson(update.oldValues.toUtf8()).object();
     const QJsonObject after = QJsonDocument::fromJson(update.newValues.toUtf8()).object();
-    CHECK(before.value(QStringLiteral("indicated")).toDouble() == session.readings[4].indicated);
+    CHECK(before.value(QStringLiteral("indicated")).toDouble() == *session.readings[4].indicated);
     CHECK(after.value(QStringLiteral("indicated")).toDouble() == 6.5);
     // A reading has no id of its own: its entries are filed under its session.
     CHECK(update.row_id == session.id);

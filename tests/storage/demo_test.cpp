@@ -92,7 +92,7 @@ double worstFraction(const Instrument& instrument, const CalibrationSession& ses
     double worst = -1.0;
     for (const mw::Reading& reading : session.readings) {
         if (reading.phase == phase) {
-            worst = std::max(worst, std::fabs(reading.indicated - reading.applied) /
+            worst = std::max(worst, std::fabs(*reading.indicated - reading.applied) /
                                         limitOf(instrument, reading.range_id));
         }
     }

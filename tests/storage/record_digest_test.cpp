@@ -69,7 +69,7 @@ TEST_CASE("the canonical record is independent of part order and sensitive to ev
     CHECK(canonicalRecord(reordered, context) == text);
 
     mw::CalibrationSession nudged = s;
-    nudged.readings[3].indicated = std::nextafter(nudged.readings[3].indicated, 100.0);
+    nudged.readings[3].indicated = std::nextafter(*nudged.readings[3].indicated, 100.0);
     CHECK(canonicalRecord(nudged, context) != text);
     mw::CalibrationSession noted = s;
     noted.adjustments[0].text += ".";

@@ -45,13 +45,22 @@ TEST_CASE("readings are saved by their key and can be removed", "[session]") {
     sessions.create(session);
     mw::Reading changed = session.readings[0];
     changed.indicated = 2.07;
-    sessions.saveReading(session.id, changed);
+    // Saving says what it replaced (what an undo puts back), or nothing for a new reading.
+    CHECK(sessions.putReading(session.id, changed) == session.readings[0]);
     auto read = sessions.find(session.id);
     REQUIRE(read->readings.size() == session.readings.size());
     CHECK(read->readings[0].indicated == 2.07);
-    sessions.removeReading(session.id, changed);
+    CHECK(sessions.removeReading(session.id, mw::keyOf(changed)) == changed);
     CHECK(sessions.find(session.id)->readings.size() == session.readings.size() - 1);
     CHECK(sessions.readingCount() == std::int64_t(session.readings.size() - 1));
+    CHECK_THROWS_AS(sessions.removeReading(session.id, mw::keyOf(changed)), WorkbookError);
+    CHECK_FALSE(sessions.putReading(session.id, changed)); // new again
+    // A reading whose applied value is typed before its indication is kept, pending.
+    mw::Reading pending = changed;
+    pending.point_index = 7;
+    pending.indicated.reset();
+    CHECK_FALSE(sessions.putReading(session.id, pending));
+    CHECK_FALSE(sessions.find(session.id)->readings.back().indicated);
 
     session.environment = {21.0, 38.5};
     session.outcome = mw::Outcome::ConditionalFail; // never written: submit() computes it
@@ -63,9 +72,9 @@ TEST_CASE("readings are saved by their key and can be removed", "[session]") {
     CHECK(read->environment == mw::Environment{21.0, 38.5});
     CHECK_FALSE(read->outcome);
     CHECK(read->settings == mw::EvaluationSettings{0.1, 0.99, 20.0});
-    sessions.addAdjustmentNote(session.id, {mwtest::at(2025, 3, 4, 12), "Span trimmed"});
+    sessions.addAdjustmentNote(session.id, {0, mwtest::at(2025, 3, 4, 12), "Span trimmed"});
     sessions.addResistorCheck(session.id,
-                              {seed.instrument.ranges[1].id, "shunt", 63.16, 63.2, 0.5});
+                              {0, seed.instrument.ranges[1].id, "shunt", 63.16, 63.2, 0.5});
     read = sessions.find(session.id);
     CHECK(read->adjustments.size() == 2);
     CHECK(read->resistor_checks.size() == 2);
@@ -147,7 +156,7 @@ TEST_CASE("the review workflow: submit, return, reopen, approve, amend", "[sessi
     CHECK(sessions.find(session.id)->state == SessionState::Approved);
     mw::Reading fixed = revision->readings[2];
     fixed.indicated = 4.01;
-    sessions.saveReading(amendment, fixed);
+    sessions.putReading(amendment, fixed);
     sessions.submit(amendment, mwtest::at(2025, 4, 2));
     sessions.approve(amendment, seed.admin.id, mwtest::at(2025, 4, 3));
     CHECK(sessions.find(session.id)->state == SessionState::Superseded);

@@ -187,7 +187,7 @@ TEST_CASE("an amendment keeps the copies of the record it amends", "[workflow]")
     CHECK_FALSE(draft->outcome);
     mw::Reading fixed = draft->readings[2];
     fixed.indicated = fixed.applied + 0.01;
-    sessions.saveReading(amendment, fixed);
+    sessions.putReading(amendment, fixed);
     sessions.submit(amendment, mwtest::at(2025, 4, 2));
     // The record is corrected with the standard as it was that day, not as it is now.
     CHECK(sessions.find(amendment)->sealed == original->sealed);

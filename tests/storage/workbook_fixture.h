@@ -194,8 +194,8 @@ inline mw::CalibrationSession draft(const Seed& s, mw::Timestamp started = at(20
         c.readings.push_back({volts, point, mw::Direction::Down, mw::Phase::AsFound, 1,
                               mw::Unit::Volt, applied, applied - 0.03});
     }
-    c.resistor_checks = {{volts, "R1 multiplier", 198800.0, 198650.0, 0.1}};
-    c.adjustments = {{started + hours{1}, "Zero set with the mechanical adjuster"}};
+    c.resistor_checks = {{0, volts, "R1 multiplier", 198800.0, 198650.0, 0.1}};
+    c.adjustments = {{0, started + hours{1}, "Zero set with the mechanical adjuster"}};
     return c;
 }
 
