@@ -206,7 +206,8 @@ std::vector<TableDefinition> makeTables() {
         STRICT, WITHOUT ROWID)",
                  {"session_id", "standard_id", "sort_order", "label", "unit", "signal",
                   "full_scale", "percent_of_reading", "percent_of_range", "floor_value",
-                  "certificate_expanded_uncertainty", "coverage_factor", "certificate_dof"}});
+                  "certificate_expanded_uncertainty", "coverage_factor", "certificate_dof"},
+                 {"standard_id", "sort_order"}});
     // Each range as the session used it, and the standard's range its reference came from.
     t.push_back(
         {"session_ranges",
@@ -257,7 +258,8 @@ std::vector<TableDefinition> makeTables() {
         nominal REAL NOT NULL CHECK ({finite:nominal}),
         repeats INTEGER NOT NULL CHECK (repeats BETWEEN 1 AND 20),
         PRIMARY KEY (session_id, range_id, point_index)) STRICT, WITHOUT ROWID)",
-                 {"session_id", "range_id", "point_index", "nominal", "repeats"}});
+                 {"session_id", "range_id", "point_index", "nominal", "repeats"},
+                 {"range_id", "point_index"}});
     // A reading is identified by its natural key and stored in that key's b-tree only. Its
     // indication is NULL while only the applied value has been typed (a pending reading).
     t.push_back({"readings",
@@ -274,7 +276,8 @@ std::vector<TableDefinition> makeTables() {
         PRIMARY KEY (session_id, range_id, point_index, direction, phase, repeat_number))
         STRICT, WITHOUT ROWID)",
                  {"session_id", "range_id", "point_index", "direction", "phase", "repeat_number",
-                  "unit", "applied", "indicated"}});
+                  "unit", "applied", "indicated"},
+                 {"range_id", "point_index", "direction", "phase", "repeat_number"}});
     t.push_back({"resistor_checks",
                  R"(CREATE TABLE resistor_checks (
         id INTEGER PRIMARY KEY,

@@ -12,6 +12,8 @@ struct TableDefinition {
     const char* name;
     const char* createSql;            // with placeholders; see expand()
     std::vector<const char*> columns; // every column, in the table's order
+    // The key of a table without an id of its own (after session_id), logged with an insert.
+    std::vector<const char*> keyColumns = {};
 };
 
 // The tables in the order they are created (a table after those it refers to).

@@ -86,6 +86,29 @@ SessionRepository::putReadings(std::int64_t sessionId, const std::vector<Reading
     return previous;
 }
 
+std::vector<std::optional<Reading>>
+SessionRepository::setReadings(std::int64_t sessionId, const std::vector<ReadingChange>& changes) {
+    const QSqlDatabase db = workbook_.database();
+    Transaction transaction(workbook_);
+    std::vector<std::optional<Reading>> previous;
+    for (const ReadingChange& change : changes) {
+        if (change.value) {
+            if (keyOf(*change.value) != change.key) {
+                throw WorkbookError(Kind::BadInput,
+                                    QStringLiteral("a reading set under another reading's key"));
+            }
+            previous.push_back(detail::putReading(db, sessionId, *change.value));
+            continue;
+        }
+        previous.push_back(detail::findReading(db, sessionId, change.key));
+        if (previous.back()) {
+            detail::deleteReading(db, sessionId, change.key);
+        }
+    }
+    transaction.commit();
+    return previous;
+}
+
 Reading SessionRepository::removeReading(std::int64_t sessionId, const ReadingKey& key) {
     const QSqlDatabase db = workbook_.database();
     Transaction transaction(workbook_);

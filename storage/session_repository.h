@@ -18,6 +18,12 @@ namespace mw::storage {
 
 class Workbook;
 
+// One reading to set: `value` saved under `key`, or the reading under `key` removed (nullopt).
+struct ReadingChange {
+    ReadingKey key;
+    std::optional<Reading> value;
+};
+
 // A test point taken out of a plan together with its readings, so that it can be put back.
 struct RemovedPoint {
     TestPoint point;
@@ -50,6 +56,10 @@ public:
                                                     const std::vector<Reading>& readings);
     // Removes the reading with that key and returns it; NotFound when there is none.
     Reading removeReading(std::int64_t sessionId, const ReadingKey& key);
+    // Any mix of saves and removals in one transaction; returns what each key held before
+    // (nullopt: nothing), so that setting those back undoes the change exactly.
+    std::vector<std::optional<Reading>> setReadings(std::int64_t sessionId,
+                                                    const std::vector<ReadingChange>& changes);
 
     // The plan: the points of a range get the next free point indices when added.
     TestPoint addTestPoint(std::int64_t sessionId, std::int64_t rangeId, double nominal,

@@ -41,7 +41,8 @@ QString jsonOf(const std::vector<const char*>& columns, const QString& row) {
 
 // An insert is logged without its values: the row itself holds them, and any later update or
 // delete logs them as old values. Repeating every reading in the log would double the file and
-// the time quick_check takes on every open.
+// the time quick_check takes on every open. A row without an id of its own is logged with its
+// key, so the log can say which reading was added.
 void createAuditTriggersFor(const QSqlDatabase& db, const schema3::TableDefinition& table) {
     const QString name = QLatin1String(table.name);
     const QString insert = QStringLiteral(
@@ -56,9 +57,11 @@ void createAuditTriggersFor(const QSqlDatabase& db, const schema3::TableDefiniti
     const QString idColumn = QLatin1String(table.columns.front()) == QLatin1String("id")
                                  ? QStringLiteral("id")
                                  : QStringLiteral("session_id");
+    const QString insertedKey =
+        table.keyColumns.empty() ? null : jsonOf(table.keyColumns, QStringLiteral("NEW"));
     run(db, QStringLiteral("CREATE TRIGGER audit_%1_insert AFTER INSERT ON %1 BEGIN %2 END")
                 .arg(name, insert.arg(now, name, QStringLiteral("NEW.") + idColumn,
-                                      QStringLiteral("insert"), null, null)));
+                                      QStringLiteral("insert"), null, insertedKey)));
     run(db, QStringLiteral("CREATE TRIGGER audit_%1_update AFTER UPDATE ON %1 BEGIN %2 END")
                 .arg(name, insert.arg(now, name, QStringLiteral("NEW.") + idColumn,
                                       QStringLiteral("update"), oldJson, newJson)));

@@ -2,10 +2,13 @@
 // needs, so that an undo puts the workbook back exactly as it was. Invented fixture data.
 #include "storage/session_repository.h"
 
+#include "storage/audit_repository.h"
 #include "storage/workbook_error.h"
 #include "tests/storage/workbook_fixture.h"
 
 #include <catch2/catch.hpp>
+
+#include <algorithm>
 
 using mw::CalibrationSession;
 using mw::storage::SessionRepository;
@@ -83,4 +86,44 @@ TEST_CASE("nothing is edited once the session is submitted", "[edits]") {
     CHECK_THROWS_AS(sessions.removeReading(session.id, mw::keyOf(session.readings[0])),
                     WorkbookError);
     CHECK(sessions.find(session.id)->readings == session.readings);
+}
+
+TEST_CASE("saves and removals in one step come back as what to set to undo them", "[edits]") {
+    mwtest::TempWorkbook temp;
+    auto workbook = temp.open();
+    const mwtest::Seed seed = mwtest::seed(*workbook);
+    SessionRepository sessions(*workbook);
+    CalibrationSession session = mwtest::draft(seed);
+    sessions.create(session);
+    mw::Reading changed = session.readings[1];
+    changed.indicated = 1.99;
+    mw::Reading added = session.readings[1];
+    added.phase = mw::Phase::AsLeft;
+    const std::vector<mw::storage::ReadingChange> step = {
+        {mw::keyOf(changed), changed},
+        {mw::keyOf(added), added},
+        {mw::keyOf(session.readings[2]), std::nullopt},
+    };
+    const auto before = sessions.setReadings(session.id, step);
+    REQUIRE(before.size() == 3);
+    CHECK(before[0] == session.readings[1]);
+    CHECK_FALSE(before[1]);
+    CHECK(before[2] == session.readings[2]);
+    // Setting back what each key held undoes the step exactly.
+    std::vector<mw::storage::ReadingChange> undo;
+    for (std::size_t i = 0; i < step.size(); ++i) {
+        undo.push_back({step[i].key, before[i]});
+    }
+    sessions.setReadings(session.id, undo);
+    CHECK(sessions.find(session.id)->readings == session.readings);
+
+    // The session log names each reading the step touched.
+    const auto log = mw::storage::AuditRepository(*workbook).entriesOfSession(session.id);
+    const auto inserted = std::count_if(log.begin(), log.end(), [](const auto& e) {
+        return e.table == QLatin1String("readings") && e.action == QLatin1String("insert") &&
+               e.newValues.contains(QStringLiteral("\"phase\":\"as-left\""));
+    });
+    CHECK(inserted == 1);
+    CHECK(std::any_of(log.begin(), log.end(),
+                      [](const auto& e) { return e.table == QLatin1String("adjustment_notes"); }));
 }
