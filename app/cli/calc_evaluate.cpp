@@ -268,7 +268,7 @@ void addReadingAids(const QCommandLineParser& parser, EvaluationInput& input) {
 }
 
 EvaluationInput inputFromOptions(const QCommandLineParser& parser, ReadingsFile& readings) {
-    const bool decimalComma = parser.isSet(QStringLiteral("decimal-comma"));
+    const bool decimalComma = decimalCommaSet(parser);
     ParseOptions options;
     options.decimalComma = decimalComma;
     EvaluationInput input;
@@ -415,7 +415,7 @@ int runEvaluate(const QStringList& arguments) {
                        "expanded_uncertainty is U rounded UP to two significant digits (JCGM "
                        "100:2008 7.2.6); tur and the decision use that rounded U."));
     addEvaluateOptions(parser);
-    parseOptions(parser, QStringLiteral("calc evaluate"), arguments);
+    parseOptions(parser, QStringLiteral("calc evaluate"), arguments, ReadsValues::Yes);
     if (helpRequested(parser, QStringLiteral("calc evaluate"))) {
         return 0;
     }

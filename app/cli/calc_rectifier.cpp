@@ -147,34 +147,46 @@ WaveShape shapeFrom(const QCommandLineParser& parser) {
                                                  : WaveShape::Sine;
 }
 
-QJsonValue cautionFor(double range_volts, Rectifier rectifier, const Dissipation& heat) {
-    std::optional<std::string> text = hazardCaution(
-        range_volts, rectifier == Rectifier::None ? VoltageKind::Dc : VoltageKind::AcRms);
-    if (heat.exceedsRating) {
-        const std::string rating = "The multiplier dissipates " +
-                                   formatEngineering(heat.watts_overrange, 3, Unit::Watt) +
-                                   " at 120 % of range, above half of a " +
-                                   formatEngineering(heat.watts_rating, 3, Unit::Watt) + " rating.";
-        text = text ? *text + " " + rating : rating;
+// A hazardous-live caution and a rating caution, joined; null when there is neither.
+QJsonValue cautionFor(std::optional<std::string> hazard, const std::optional<std::string>& other) {
+    if (other) {
+        hazard = hazard ? *hazard + " " + *other : *other;
     }
-    return text ? QJsonValue(QString::fromStdString(*text)) : QJsonValue(QJsonValue::Null);
+    return hazard ? QJsonValue(QString::fromStdString(*hazard)) : QJsonValue(QJsonValue::Null);
 }
 
-// The human-readable form of `calc multiplier`, from the same numbers as the JSON.
-void printMultiplier(const QJsonObject& json) {
+VoltageKind voltageKind(Rectifier rectifier) {
+    return rectifier == Rectifier::None ? VoltageKind::Dc : VoltageKind::AcRms;
+}
+
+// The human-readable form of `calc multiplier`, from the same numbers as the JSON. A DC
+// voltmeter has no diodes, so nothing is said about them.
+void printMultiplier(const QJsonObject& json, Rectifier rectifier) {
     const auto value = [&json](const char* key, Unit unit, int digits = 5) {
         return eng(json.value(QLatin1String(key)).toDouble(), unit, digits);
     };
-    printLine(
-        QStringLiteral("multiplier        %1 (ideal diodes %2)")
-            .arg(value("multiplier_ohm", Unit::Ohm), value("multiplier_ideal_ohm", Unit::Ohm)));
-    printLine(QStringLiteral("sensitivity       %1 (ideal diodes), %2 effective")
-                  .arg(value("sensitivity_ohm_per_volt", Unit::OhmPerVolt),
-                       value("effective_sensitivity_ohm_per_volt", Unit::OhmPerVolt)));
-    printLine(QStringLiteral("E96 not above     %1 + trim %2")
-                  .arg(value("nearest_standard_ohm", Unit::Ohm, 3), value("trim_ohm", Unit::Ohm)));
-    printLine(QStringLiteral("dissipation       %1 at full scale")
-                  .arg(value("dissipation_w", Unit::Watt, 3)));
+    const bool dc = rectifier == Rectifier::None;
+    printLine(dc ? QStringLiteral("multiplier        %1").arg(value("multiplier_ohm", Unit::Ohm))
+                 : QStringLiteral("multiplier        %1 (ideal diodes %2)")
+                       .arg(value("multiplier_ohm", Unit::Ohm),
+                            value("multiplier_ideal_ohm", Unit::Ohm)));
+    printLine(dc ? QStringLiteral("sensitivity       %1")
+                       .arg(value("sensitivity_ohm_per_volt", Unit::OhmPerVolt))
+                 : QStringLiteral("sensitivity       %1 (ideal diodes), %2 effective")
+                       .arg(value("sensitivity_ohm_per_volt", Unit::OhmPerVolt),
+                            value("effective_sensitivity_ohm_per_volt", Unit::OhmPerVolt)));
+    if (json.value(QStringLiteral("trim_ohm")).isNull()) {
+        printLine(QStringLiteral("E96 not above     %1; %2")
+                      .arg(value("nearest_standard_ohm", Unit::Ohm, 3),
+                           json.value(QStringLiteral("trim_note")).toString()));
+    } else {
+        printLine(
+            QStringLiteral("E96 not above     %1 + trim %2")
+                .arg(value("nearest_standard_ohm", Unit::Ohm, 3), value("trim_ohm", Unit::Ohm)));
+    }
+    printLine(QStringLiteral("dissipation       %1 at full scale, %2 across it at 120 %")
+                  .arg(value("dissipation_w", Unit::Watt, 3),
+                       value("voltage_overrange_v", Unit::Volt, 3)));
     if (json.value(QStringLiteral("caution")).isString()) {
         printLine(QStringLiteral("caution           ") +
                   json.value(QStringLiteral("caution")).toString());
@@ -197,21 +209,35 @@ int runMultiplier(const QStringList& arguments) {
     addValueOption(parser, QStringLiteral("range"),
                    QStringLiteral("Full-scale voltage of the range (e.g. 10V)."),
                    QStringLiteral("V"));
-    parseOptions(parser, command, arguments);
+    addValueOption(parser, QStringLiteral("rating"),
+                   QStringLiteral("Power rating of the multiplier resistor (default 0.25W)."),
+                   QStringLiteral("W"));
+    addValueOption(parser, QStringLiteral("voltage-rating"),
+                   QStringLiteral("Largest working voltage of one multiplier resistor (default "
+                                  "250V, typical of a 0.25 W film resistor; common practice)."),
+                   QStringLiteral("V"));
+    parseOptions(parser, command, arguments, ReadsValues::Yes);
     if (helpRequested(parser, command)) {
         return 0;
     }
     const Rectifier rectifier = rectifierFrom(parser, QStringLiteral("none"));
     const RectifierCircuit circuit = circuitFrom(parser, rectifier, 0.0);
     const double range_volts = requireQuantity(parser, QStringLiteral("range"), Unit::Volt);
+    const double watts_rating =
+        optionalQuantity(parser, QStringLiteral("rating"), Unit::Watt).value_or(kTypicalRating_W);
+    const double volts_rating =
+        optionalQuantity(parser, QStringLiteral("voltage-rating"), Unit::Volt)
+            .value_or(kTypicalVoltageRating_V);
     const RectifierMeter meter = meterFrom(parser, circuit);
     const MultiplierSolution solution = solveMultiplier(meter, range_volts);
 
     const double ohms = solution.multiplier_ohms;
     const bool positive = ohms > 0.0;
     const ResistorChoice choice = positive ? chooseResistor(ohms, ESeries::E96) : ResistorChoice{};
-    const Dissipation heat =
-        positive ? dissipation(ohms, solution.multiplier_rms_amps_fs) : Dissipation{};
+    // rms current and voltage: the working voltage of a resistor is given as DC or AC rms.
+    const Dissipation heat = positive ? dissipation(ohms, solution.multiplier_rms_amps_fs,
+                                                    watts_rating, kTypicalDerating, volts_rating)
+                                      : Dissipation{};
     QJsonObject json;
     json[QStringLiteral("multiplier_ohm")] = jsonNumber(ohms);
     json[QStringLiteral("multiplier_ideal_ohm")] = jsonNumber(solution.ideal_multiplier_ohms);
@@ -223,15 +249,25 @@ int runMultiplier(const QStringList& arguments) {
     json[QStringLiteral("effective_sensitivity_ohm_per_volt")] =
         jsonNumber(1.0 / solution.multiplier_rms_amps_fs);
     json[QStringLiteral("nearest_standard_ohm")] = jsonNumber(choice.ohms_standard);
-    json[QStringLiteral("trim_ohm")] = jsonNumber(choice.ohms_trim);
+    json[QStringLiteral("trim_ohm")] =
+        choice.trimPractical ? jsonNumber(choice.ohms_trim) : QJsonValue(QJsonValue::Null);
+    json[QStringLiteral("trim_note")] = choice.trimPractical
+                                            ? QJsonValue(QJsonValue::Null)
+                                            : QJsonValue(QString::fromStdString(choice.trimNote));
     json[QStringLiteral("dissipation_w")] = jsonNumber(heat.watts_fs);
+    json[QStringLiteral("voltage_overrange_v")] = jsonNumber(heat.volts_overrange);
+    json[QStringLiteral("exceeds_rating")] = heat.overRating;
+    json[QStringLiteral("exceeds_derated_rating")] = heat.aboveDeratedRating;
+    json[QStringLiteral("exceeds_voltage_rating")] = heat.overVoltageRating;
     json[QStringLiteral("multiplier_rms_current_a")] = jsonNumber(solution.multiplier_rms_amps_fs);
-    json[QStringLiteral("caution")] = cautionFor(range_volts, rectifier, heat);
+    json[QStringLiteral("caution")] =
+        cautionFor(hazardCaution(range_volts, voltageKind(rectifier)),
+                   positive ? ratingCaution(heat, "the multiplier") : std::nullopt);
     if (parser.isSet(QStringLiteral("json"))) {
         printJson(json);
         return 0;
     }
-    printMultiplier(json);
+    printMultiplier(json, rectifier);
     return 0;
 }
 
@@ -262,7 +298,7 @@ int runIndication(const QStringList& arguments) {
     addMovementOptions(parser);
     addDiodeOptions(parser);
     addIndicationOptions(parser);
-    parseOptions(parser, command, arguments);
+    parseOptions(parser, command, arguments, ReadsValues::Yes);
     if (helpRequested(parser, command)) {
         return 0;
     }
@@ -289,6 +325,12 @@ int runIndication(const QStringList& arguments) {
     json[QStringLiteral("indicated")] = jsonNumber(indication.indicated);
     json[QStringLiteral("error_percent_of_range")] = jsonNumber(indication.error_percent_of_range);
     json[QStringLiteral("input_v")] = jsonNumber(indication.input_rms_volts);
+    // The test value on the terminals, against the IEC 61010-1 hazardous-live limits.
+    json[QStringLiteral("caution")] = cautionFor(
+        rectifier == Rectifier::None ? hazardCaution(input_volts, VoltageKind::Dc)
+        : input_volts > 0.0 ? hazardCaution(input_volts, VoltageKind::AcRms, input.crestFactor())
+                            : std::nullopt,
+        std::nullopt);
     if (parser.isSet(QStringLiteral("json"))) {
         printJson(json);
         return 0;
@@ -299,6 +341,10 @@ int runIndication(const QStringList& arguments) {
                   .arg(eng(indication.indicated, Unit::Volt), eng(input_volts, Unit::Volt)));
     printLine(QStringLiteral("error             %1 of range")
                   .arg(eng(indication.error_percent_of_range, Unit::Percent, 3)));
+    if (json.value(QStringLiteral("caution")).isString()) {
+        printLine(QStringLiteral("caution           ") +
+                  json.value(QStringLiteral("caution")).toString());
+    }
     return 0;
 }
 
@@ -373,8 +419,8 @@ Waveform waveformFrom(const QCommandLineParser& parser) {
                                      .arg(QLatin1String(other)));
             }
         }
-        return Waveform::sampled(readSamples(parser.value(QStringLiteral("samples")),
-                                             parser.isSet(QStringLiteral("decimal-comma"))));
+        return Waveform::sampled(
+            readSamples(parser.value(QStringLiteral("samples")), decimalCommaSet(parser)));
     }
     const WaveShape shape = shapeFrom(parser);
     if (parser.isSet(QStringLiteral("rms")) && parser.isSet(QStringLiteral("peak"))) {
@@ -426,7 +472,7 @@ int runWaveform(const QStringList& arguments) {
     addValueOption(parser, QStringLiteral("rectifier"),
                    QStringLiteral("Meter's rectifier: bridge (default) or half."),
                    QStringLiteral("KIND"));
-    parseOptions(parser, command, arguments);
+    parseOptions(parser, command, arguments, ReadsValues::Yes);
     if (helpRequested(parser, command)) {
         return 0;
     }
@@ -451,6 +497,11 @@ int runWaveform(const QStringList& arguments) {
     json[QStringLiteral("crest_factor")] = jsonNumber(wave.crestFactor());
     json[QStringLiteral("reading_v")] = jsonNumber(reading.indicated_volts);
     json[QStringLiteral("error_percent")] = jsonNumber(reading.error_percent);
+    // The waveform on the terminals: its rms and its peak (crest factor) against IEC 61010-1.
+    json[QStringLiteral("caution")] = cautionFor(
+        wave.rms() > 0.0 ? hazardCaution(wave.rms(), VoltageKind::AcRms, wave.crestFactor())
+                         : std::nullopt,
+        std::nullopt);
     if (parser.isSet(QStringLiteral("json"))) {
         printJson(json);
         return 0;
@@ -462,6 +513,10 @@ int runWaveform(const QStringList& arguments) {
     printLine(QStringLiteral("average-responding meter reads %1 (%2)")
                   .arg(eng(reading.indicated_volts, Unit::Volt),
                        eng(reading.error_percent, Unit::Percent, 3)));
+    if (json.value(QStringLiteral("caution")).isString()) {
+        printLine(QStringLiteral("caution           ") +
+                  json.value(QStringLiteral("caution")).toString());
+    }
     return 0;
 }
 
