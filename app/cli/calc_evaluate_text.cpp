@@ -27,7 +27,8 @@ QString plain(double value) {
 }
 
 QString percent(double fraction) {
-    return eng(100.0 * fraction, 2, Unit::Percent);
+    // Below one in a million the digits say nothing a reader can use.
+    return fraction < 1e-6 ? QStringLiteral("< 0.0001 %") : eng(100.0 * fraction, 2, Unit::Percent);
 }
 
 // Applied values in the range's prefix, to five significant digits of its upper limit, so that
