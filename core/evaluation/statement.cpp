@@ -94,8 +94,7 @@ std::string omissions(const StatementFacts& facts) {
 
 std::string coverage(double probability) {
     const bool twoSigma = std::fabs(probability - kProbabilityTwoSigma) < 1e-12;
-    return twoSigma ? std::string("about 95 % (k = 2 for infinite degrees of freedom)")
-                    : number(100.0 * probability) + " %";
+    return twoSigma ? std::string("95.45 %") : number(100.0 * probability) + " %";
 }
 
 } // namespace
@@ -154,8 +153,9 @@ std::string conformityStatement(const StatementFacts& facts) {
            " to " + quantity(facts.upper, facts.unit) + " range: " + verdict(facts) +
            findings(facts) + " Decision rule: " + describeRule(facts.decision) + "." +
            reference(facts) + omissions(facts) +
-           " Uncertainties are expanded uncertainties U for a coverage probability of " +
-           coverage(facts.probability) + " (JCGM 100:2008).";
+           " Uncertainties are expanded uncertainties U for a coverage probability of about " +
+           coverage(facts.probability) +
+           ", with k from Student's t at the effective degrees of freedom (JCGM 100:2008 G.4).";
 }
 
 } // namespace mw
