@@ -58,23 +58,57 @@ std::vector<double> currentList(const QCommandLineParser& parser, const QString&
     return values;
 }
 
-int runShunt(const QStringList& arguments) {
-    const QString command = QStringLiteral("calc shunt");
-    QCommandLineParser parser;
-    parser.setApplicationDescription(
-        QStringLiteral("Shunt for a DC ammeter range: R_sh = I_fs·R_m / (I - I_fs)."));
-    addMovementOptions(parser);
+void addShuntOptions(QCommandLineParser& parser) {
     parser.addOption(valueOption(QStringLiteral("range"),
                                  QStringLiteral("Full-scale current of the range (e.g. 1A)."),
                                  QStringLiteral("A")));
     parser.addOption(valueOption(QStringLiteral("rating"),
                                  QStringLiteral("Power rating of the shunt (default 0.25W)."),
                                  QStringLiteral("W")));
-    parseOptions(parser, command, arguments);
+    parser.addOption(valueOption(QStringLiteral("swamp"),
+                                 QStringLiteral("Low-tempco swamping resistor in series with the "
+                                                "coil (default 0)."),
+                                 QStringLiteral("OHM")));
+    parser.addOption(valueOption(QStringLiteral("class"),
+                                 QStringLiteral("Accuracy class the temperature drift is checked "
+                                                "against (default 1: 1 % per 10 K, IEC 60051-1)."),
+                                 QStringLiteral("INDEX")));
+}
+
+// The caution lines of a shunt design: its ratings, and a copper coil left unswamped.
+QStringList shuntCautions(const Dissipation& heat, const CoilCircuit& circuit, double classIndex) {
+    QStringList cautions;
+    if (const auto rating = ratingCaution(heat, "the shunt")) {
+        cautions << QString::fromStdString(*rating);
+    }
+    if (const auto drift = unswampedShuntCaution(circuit, classIndex)) {
+        cautions << QString::fromStdString(*drift);
+    }
+    return cautions;
+}
+
+int runShunt(const QStringList& arguments) {
+    const QString command = QStringLiteral("calc shunt");
+    QCommandLineParser parser;
+    parser.setApplicationDescription(QStringLiteral(
+        "Shunt for a DC ammeter range: R_sh = I_fs·(R_m + R_swamp) / (I - I_fs), its burden "
+        "voltage and dissipation, and the span drift of the copper coil over 10 K (IEC 60028 "
+        "copper; coil taken at 20 °C, shunt and swamp as zero-tempco manganin)."));
+    addMovementOptions(parser);
+    addShuntOptions(parser);
+    parseOptions(parser, command, arguments, ReadsValues::Yes);
     if (helpRequested(parser, command)) {
         return 0;
     }
-    const Movement movement = movementFrom(parser);
+    const Movement bare = movementFrom(parser);
+    const double ohms_swamp =
+        optionalQuantity(parser, QStringLiteral("swamp"), Unit::Ohm).value_or(0.0);
+    if (ohms_swamp < 0.0) {
+        throw UsageError(QStringLiteral("option --swamp cannot be negative"));
+    }
+    const double classIndex =
+        optionalQuantity(parser, QStringLiteral("class"), Unit::Dimensionless).value_or(1.0);
+    const Movement movement{bare.amps_fs, bare.ohms_coil + ohms_swamp}; // the shunted branch
     const double amps_range = requireQuantity(parser, QStringLiteral("range"), Unit::Ampere);
     const double watts_rating =
         optionalQuantity(parser, QStringLiteral("rating"), Unit::Watt).value_or(kTypicalRating_W);
@@ -82,26 +116,42 @@ int runShunt(const QStringList& arguments) {
     const double amps_shunt = amps_range - movement.amps_fs;
     const Dissipation heat = dissipation(ohms_shunt, amps_shunt, watts_rating);
     const double ohms_meter = ohms_shunt * movement.ohms_coil / (ohms_shunt + movement.ohms_coil);
+    const double burden_V = movement.fullScaleDrop_V();
+    const CoilCircuit circuit{bare.ohms_coil, TempcoResistor{ohms_swamp, 0.0},
+                              TempcoResistor{ohms_shunt, 0.0}};
+    const double drift = spanDriftPer10K(circuit);
+    const QStringList cautions = shuntCautions(heat, circuit, classIndex);
     if (parser.isSet(QStringLiteral("json"))) {
         printJson({{QStringLiteral("shunt_ohm"), jsonNumber(ohms_shunt)},
                    {QStringLiteral("range_a"), jsonNumber(amps_range)},
                    {QStringLiteral("shunt_current_a"), jsonNumber(amps_shunt)},
                    {QStringLiteral("meter_resistance_ohm"), jsonNumber(ohms_meter)},
-                   {QStringLiteral("burden_v"), jsonNumber(movement.fullScaleDrop_V())},
+                   {QStringLiteral("burden_v"), jsonNumber(burden_V)},
+                   {QStringLiteral("burden_overrange_v"), jsonNumber(kOverrangeFactor * burden_V)},
                    {QStringLiteral("dissipation_w"), jsonNumber(heat.watts_fs)},
                    {QStringLiteral("dissipation_overrange_w"), jsonNumber(heat.watts_overrange)},
-                   {QStringLiteral("exceeds_rating"), heat.exceedsRating}});
+                   {QStringLiteral("exceeds_rating"), heat.overRating},
+                   {QStringLiteral("exceeds_derated_rating"), heat.aboveDeratedRating},
+                   {QStringLiteral("span_drift_percent_per_10k"), jsonNumber(100.0 * drift)},
+                   {QStringLiteral("caution"), cautions.isEmpty()
+                                                   ? QJsonValue(QJsonValue::Null)
+                                                   : QJsonValue(cautions.join(QLatin1Char(' ')))}});
         return 0;
     }
     printLine(QStringLiteral("shunt            %1").arg(eng(ohms_shunt, Unit::Ohm)));
     printLine(
         QStringLiteral("shunt current    %1 at full scale").arg(eng(amps_shunt, Unit::Ampere)));
-    printLine(QStringLiteral("meter resistance %1, burden %2 at full scale")
-                  .arg(eng(ohms_meter, Unit::Ohm), eng(movement.fullScaleDrop_V(), Unit::Volt)));
+    printLine(QStringLiteral("meter resistance %1").arg(eng(ohms_meter, Unit::Ohm)));
+    printLine(QStringLiteral("burden           %1 at full scale, %2 at 120 %")
+                  .arg(eng(burden_V, Unit::Volt), eng(kOverrangeFactor * burden_V, Unit::Volt)));
+    printLine(QStringLiteral("dissipation      %1 at full scale, %2 at 120 % (rating %3)")
+                  .arg(eng(heat.watts_fs, Unit::Watt), eng(heat.watts_overrange, Unit::Watt),
+                       eng(heat.watts_rating, Unit::Watt, 3)));
     printLine(
-        QStringLiteral("dissipation      %1 at full scale, %2 at 120 %%3")
-            .arg(eng(heat.watts_fs, Unit::Watt), eng(heat.watts_overrange, Unit::Watt),
-                 heat.exceedsRating ? QStringLiteral(" (above half the rating)") : QString()));
+        QStringLiteral("span drift       %1 per 10 K").arg(eng(100.0 * drift, Unit::Percent, 3)));
+    for (const QString& caution : cautions) {
+        printLine(QStringLiteral("caution          ") + caution);
+    }
     return 0;
 }
 
@@ -121,7 +171,7 @@ int runAyrton(const QStringList& arguments) {
     parser.addOption(valueOption(QStringLiteral("ranges"),
                                  QStringLiteral("Comma-separated ranges (e.g. 10mA,100mA,1A)."),
                                  QStringLiteral("LIST")));
-    parseOptions(parser, command, arguments);
+    parseOptions(parser, command, arguments, ReadsValues::Yes);
     if (helpRequested(parser, command)) {
         return 0;
     }
@@ -131,23 +181,26 @@ int runAyrton(const QStringList& arguments) {
         QJsonArray ranges;
         QJsonArray taps;
         QJsonArray sections;
+        QJsonArray burdens;
         for (std::size_t k = 0; k < shunt.amps_ranges.size(); ++k) {
             ranges.append(jsonNumber(shunt.amps_ranges[k]));
             taps.append(jsonNumber(shunt.taps_ohm[k]));
             sections.append(jsonNumber(shunt.sections_ohm[k]));
+            burdens.append(jsonNumber(shunt.burden_V[k]));
         }
         printJson({{QStringLiteral("ranges_a"), ranges},
                    {QStringLiteral("taps_ohm"), taps},
                    {QStringLiteral("sections_ohm"), sections},
+                   {QStringLiteral("burden_v"), burdens},
                    {QStringLiteral("total_ohm"), jsonNumber(shunt.total_ohm)},
                    {QStringLiteral("topology"), kAyrtonTopology}});
         return 0;
     }
     printLine(QStringLiteral("whole string     %1").arg(eng(shunt.total_ohm, Unit::Ohm)));
     for (std::size_t k = 0; k < shunt.amps_ranges.size(); ++k) {
-        printLine(QStringLiteral("range %1  tap at %2 from the common terminal")
+        printLine(QStringLiteral("range %1  tap at %2 from the common terminal, burden %3")
                       .arg(eng(shunt.amps_ranges[k], Unit::Ampere).leftJustified(10),
-                           eng(shunt.taps_ohm[k], Unit::Ohm)));
+                           eng(shunt.taps_ohm[k], Unit::Ohm), eng(shunt.burden_V[k], Unit::Volt)));
     }
     for (std::size_t j = 0; j < shunt.sections_ohm.size(); ++j) {
         printLine(QStringLiteral("section %1 from the common terminal: %2")
@@ -206,8 +259,17 @@ void addTemperatureOptions(QCommandLineParser& parser) {
         valueOption(QStringLiteral("range"),
                     QStringLiteral("Ammeter range for --target (with --ifs)."),
                     QStringLiteral("A")),
+        valueOption(QStringLiteral("class"),
+                    QStringLiteral("With --shunt: accuracy class the drift over 10 K is checked "
+                                   "against (default 1: 1 % per 10 K, IEC 60051-1)."),
+                    QStringLiteral("INDEX")),
     };
     parser.addOptions(options);
+}
+
+// One row of the temperature table: the label in a column wide enough for every label.
+QString tableRow(const QString& label, const QString& value) {
+    return label.leftJustified(22) + value;
 }
 
 SwampRequest swampRequestFrom(const QCommandLineParser& parser, double ohms_coil_20C,
@@ -238,7 +300,7 @@ int runTemperature(const QStringList& arguments) {
         "Copper coil resistance at a temperature (IEC 60028, 0.00393 /K at 20 °C), the span "
         "error it causes, and a swamping resistor that keeps the error within a target."));
     addTemperatureOptions(parser);
-    parseOptions(parser, command, arguments);
+    parseOptions(parser, command, arguments, ReadsValues::Yes);
     if (helpRequested(parser, command)) {
         return 0;
     }
@@ -253,7 +315,7 @@ int runTemperature(const QStringList& arguments) {
     QJsonObject json{{QStringLiteral("coil_ohm_20c"), jsonNumber(ohms_20C)},
                      {QStringLiteral("coil_ohm_at_ref"),
                       jsonNumber(copperResistance_ohm(ohms_20C, celsius_ref))}};
-    QStringList lines{QStringLiteral("coil at 20 °C        %1").arg(eng(ohms_20C, Unit::Ohm))};
+    QStringList lines{tableRow(QStringLiteral("coil at 20 °C"), eng(ohms_20C, Unit::Ohm))};
     if (celsius) {
         CoilCircuit circuit;
         circuit.ohms_coil_20C = ohms_20C;
@@ -270,12 +332,21 @@ int runTemperature(const QStringList& arguments) {
         const double error = spanError(circuit, *celsius, celsius_ref);
         json.insert(QStringLiteral("coil_ohm_at_temp"), jsonNumber(ohms_hot));
         json.insert(QStringLiteral("span_error_percent"), jsonNumber(100.0 * error));
-        lines << QStringLiteral("coil at %1  %2")
-                     .arg(eng(*celsius, Unit::DegreeCelsius, 3).leftJustified(13),
+        lines << tableRow(QStringLiteral("coil at ") + eng(*celsius, Unit::DegreeCelsius, 3),
                           eng(ohms_hot, Unit::Ohm));
-        lines << QStringLiteral("span error           %1 against %2")
-                     .arg(eng(100.0 * error, Unit::Percent, 3),
-                          eng(celsius_ref, Unit::DegreeCelsius, 3));
+        lines << tableRow(QStringLiteral("span error"),
+                          QStringLiteral("%1 against %2")
+                              .arg(eng(100.0 * error, Unit::Percent, 3),
+                                   eng(celsius_ref, Unit::DegreeCelsius, 3)));
+        const double classIndex =
+            optionalQuantity(parser, QStringLiteral("class"), Unit::Dimensionless).value_or(1.0);
+        const auto caution = unswampedShuntCaution(circuit, classIndex, celsius_ref);
+        json.insert(QStringLiteral("caution"), caution
+                                                   ? QJsonValue(QString::fromStdString(*caution))
+                                                   : QJsonValue(QJsonValue::Null));
+        if (caution) {
+            lines << tableRow(QStringLiteral("caution"), QString::fromStdString(*caution));
+        }
     }
     if (parser.isSet(QStringLiteral("target"))) {
         const SwampDesign design = designSwamp(swampRequestFrom(parser, ohms_20C, celsius_ref));
@@ -286,13 +357,14 @@ int runTemperature(const QStringList& arguments) {
         json.insert(QStringLiteral("swamp_worst_error_percent"),
                     jsonNumber(100.0 * design.worst_error_fraction));
         json.insert(QStringLiteral("swamp_worst_at_c"), jsonNumber(design.celsius_worst));
-        lines << QStringLiteral("swamping resistor    %1 (worst %2 at %3)")
-                     .arg(eng(design.ohms_swamp_20C, Unit::Ohm),
-                          eng(100.0 * design.worst_error_fraction, Unit::Percent, 3),
-                          eng(design.celsius_worst, Unit::DegreeCelsius, 3));
+        lines << tableRow(QStringLiteral("swamping resistor"),
+                          QStringLiteral("%1 (worst %2 at %3)")
+                              .arg(eng(design.ohms_swamp_20C, Unit::Ohm),
+                                   eng(100.0 * design.worst_error_fraction, Unit::Percent, 3),
+                                   eng(design.celsius_worst, Unit::DegreeCelsius, 3)));
         if (design.ohms_shunt_20C) {
-            lines << QStringLiteral("resized shunt        %1")
-                         .arg(eng(*design.ohms_shunt_20C, Unit::Ohm));
+            lines << tableRow(QStringLiteral("resized shunt"),
+                              eng(*design.ohms_shunt_20C, Unit::Ohm));
         }
     }
     if (parser.isSet(QStringLiteral("json"))) {
@@ -320,7 +392,11 @@ int runEseries(const QStringList& arguments) {
     parser.addOption(valueOption(QStringLiteral("rating"),
                                  QStringLiteral("Power rating of the part (default 0.25W)."),
                                  QStringLiteral("W")));
-    parseOptions(parser, command, arguments);
+    parser.addOption(valueOption(QStringLiteral("voltage-rating"),
+                                 QStringLiteral("Largest working voltage of the part (default "
+                                                "250V, typical of a 0.25 W film resistor)."),
+                                 QStringLiteral("V")));
+    parseOptions(parser, command, arguments, ReadsValues::Yes);
     if (helpRequested(parser, command)) {
         return 0;
     }
@@ -335,31 +411,54 @@ int runEseries(const QStringList& arguments) {
                              .arg(seriesText));
     }
     const ResistorChoice choice = chooseResistor(ohms, *series);
+    const QJsonValue null(QJsonValue::Null);
     QJsonObject json{
         {QStringLiteral("wanted_ohm"), jsonNumber(ohms)},
         {QStringLiteral("series"), QString::fromUtf8(toText(*series).data())},
         {QStringLiteral("nearest_not_above_ohm"), jsonNumber(choice.ohms_standard)},
         {QStringLiteral("nearest_ohm"), jsonNumber(nearestStandard(ohms, *series))},
-        {QStringLiteral("trim_ohm"), jsonNumber(choice.ohms_trim)},
+        {QStringLiteral("trim_ohm"), choice.trimPractical ? jsonNumber(choice.ohms_trim) : null},
         {QStringLiteral("trim_range_ohm"), jsonNumber(choice.ohms_trim_range)},
-        {QStringLiteral("trimmer_ohm"), jsonNumber(choice.ohms_trimmer)},
+        {QStringLiteral("trimmer_ohm"),
+         choice.trimPractical ? jsonNumber(choice.ohms_trimmer) : null},
+        {QStringLiteral("trim_note"),
+         choice.trimPractical ? null : QJsonValue(QString::fromStdString(choice.trimNote))},
         {QStringLiteral("tolerance_percent"), jsonNumber(100.0 * eseriesTolerance(*series))}};
     QStringList lines{
-        QStringLiteral("%1 not above %2: %3, trim %4 (trimmer %5 covers the %6 tolerance)")
-            .arg(seriesText.toUpper(), eng(ohms, Unit::Ohm), eng(choice.ohms_standard, Unit::Ohm),
-                 eng(choice.ohms_trim, Unit::Ohm), eng(choice.ohms_trimmer, Unit::Ohm, 2),
-                 eng(100.0 * eseriesTolerance(*series), Unit::Percent, 2))};
+        choice.trimPractical
+            ? QStringLiteral("%1 not above %2: %3, trim %4 (trimmer %5 covers the %6 tolerance)")
+                  .arg(seriesText.toUpper(), eng(ohms, Unit::Ohm),
+                       eng(choice.ohms_standard, Unit::Ohm), eng(choice.ohms_trim, Unit::Ohm),
+                       eng(choice.ohms_trimmer, Unit::Ohm, 2),
+                       eng(100.0 * eseriesTolerance(*series), Unit::Percent, 2))
+            : QStringLiteral("%1 not above %2: %3; %4")
+                  .arg(seriesText.toUpper(), eng(ohms, Unit::Ohm),
+                       eng(choice.ohms_standard, Unit::Ohm),
+                       QString::fromStdString(choice.trimNote))};
     if (const auto amps = optionalQuantity(parser, QStringLiteral("current"), Unit::Ampere)) {
         const double rating = optionalQuantity(parser, QStringLiteral("rating"), Unit::Watt)
                                   .value_or(kTypicalRating_W);
-        const Dissipation heat = dissipation(ohms, *amps, rating);
+        const double volts = optionalQuantity(parser, QStringLiteral("voltage-rating"), Unit::Volt)
+                                 .value_or(kTypicalVoltageRating_V);
+        const Dissipation heat = dissipation(ohms, *amps, rating, kTypicalDerating, volts);
+        const auto caution = ratingCaution(heat, "the part");
         json.insert(QStringLiteral("dissipation_w"), jsonNumber(heat.watts_fs));
         json.insert(QStringLiteral("dissipation_overrange_w"), jsonNumber(heat.watts_overrange));
-        json.insert(QStringLiteral("exceeds_rating"), heat.exceedsRating);
-        lines << QStringLiteral("dissipation %1 at full scale, %2 at 120 %%3")
+        json.insert(QStringLiteral("voltage_overrange_v"), jsonNumber(heat.volts_overrange));
+        json.insert(QStringLiteral("exceeds_rating"), heat.overRating);
+        json.insert(QStringLiteral("exceeds_derated_rating"), heat.aboveDeratedRating);
+        json.insert(QStringLiteral("exceeds_voltage_rating"), heat.overVoltageRating);
+        json.insert(QStringLiteral("caution"),
+                    caution ? QJsonValue(QString::fromStdString(*caution)) : null);
+        lines << QStringLiteral("dissipation %1 at full scale, %2 at 120 %, %3 across it at 120 %")
                      .arg(eng(heat.watts_fs, Unit::Watt), eng(heat.watts_overrange, Unit::Watt),
-                          heat.exceedsRating ? QStringLiteral(" (above half the rating)")
-                                             : QString());
+                          eng(heat.volts_overrange, Unit::Volt));
+        if (caution) {
+            lines << QStringLiteral("caution: ") + QString::fromStdString(*caution);
+        }
+    } else if (parser.isSet(QStringLiteral("rating")) ||
+               parser.isSet(QStringLiteral("voltage-rating"))) {
+        throw UsageError(QStringLiteral("options --rating and --voltage-rating need --current"));
     }
     if (parser.isSet(QStringLiteral("json"))) {
         printJson(json);

@@ -1,8 +1,8 @@
-// `meterwright calc multiplier|indication|waveform`: voltmeter range design and rectifier
-// meter predictions from the command line.
+// `meterwright calc multiplier|indication`: voltmeter range design and rectifier meter
+// predictions from the command line (calc waveform lives in calc_waveform.cpp).
+#include "app/cli/calc_waveform.h"
 #include "app/cli/cli_support.h"
 #include "app/cli/command_table.h"
-#include "app/cli/csv_table.h"
 #include "core/circuits/eseries.h"
 #include "core/circuits/hazard.h"
 #include "core/circuits/rectifier_design.h"
@@ -137,44 +137,46 @@ RectifierMeter meterFrom(const QCommandLineParser& parser, const RectifierCircui
     return RectifierMeter(circuit, diode, celsius);
 }
 
-WaveShape shapeFrom(const QCommandLineParser& parser) {
-    const QString shape =
-        chooseOne(parser, QStringLiteral("waveform"),
-                  {QStringLiteral("sine"), QStringLiteral("square"), QStringLiteral("triangle")},
-                  QStringLiteral("sine"));
-    return shape == QStringLiteral("square")     ? WaveShape::Square
-           : shape == QStringLiteral("triangle") ? WaveShape::Triangle
-                                                 : WaveShape::Sine;
-}
-
-QJsonValue cautionFor(double range_volts, Rectifier rectifier, const Dissipation& heat) {
-    std::optional<std::string> text = hazardCaution(
-        range_volts, rectifier == Rectifier::None ? VoltageKind::Dc : VoltageKind::AcRms);
-    if (heat.exceedsRating) {
-        const std::string rating = "The multiplier dissipates " +
-                                   formatEngineering(heat.watts_overrange, 3, Unit::Watt) +
-                                   " at 120 % of range, above half of a " +
-                                   formatEngineering(heat.watts_rating, 3, Unit::Watt) + " rating.";
-        text = text ? *text + " " + rating : rating;
+// A hazardous-live caution and a rating caution, joined; null when there is neither.
+QJsonValue cautionFor(std::optional<std::string> hazard, const std::optional<std::string>& other) {
+    if (other) {
+        hazard = hazard ? *hazard + " " + *other : *other;
     }
-    return text ? QJsonValue(QString::fromStdString(*text)) : QJsonValue(QJsonValue::Null);
+    return hazard ? QJsonValue(QString::fromStdString(*hazard)) : QJsonValue(QJsonValue::Null);
 }
 
-// The human-readable form of `calc multiplier`, from the same numbers as the JSON.
-void printMultiplier(const QJsonObject& json) {
+VoltageKind voltageKind(Rectifier rectifier) {
+    return rectifier == Rectifier::None ? VoltageKind::Dc : VoltageKind::AcRms;
+}
+
+// The human-readable form of `calc multiplier`, from the same numbers as the JSON. A DC
+// voltmeter has no diodes, so nothing is said about them.
+void printMultiplier(const QJsonObject& json, Rectifier rectifier) {
     const auto value = [&json](const char* key, Unit unit, int digits = 5) {
         return eng(json.value(QLatin1String(key)).toDouble(), unit, digits);
     };
-    printLine(
-        QStringLiteral("multiplier        %1 (ideal diodes %2)")
-            .arg(value("multiplier_ohm", Unit::Ohm), value("multiplier_ideal_ohm", Unit::Ohm)));
-    printLine(QStringLiteral("sensitivity       %1 (ideal diodes), %2 effective")
-                  .arg(value("sensitivity_ohm_per_volt", Unit::OhmPerVolt),
-                       value("effective_sensitivity_ohm_per_volt", Unit::OhmPerVolt)));
-    printLine(QStringLiteral("E96 not above     %1 + trim %2")
-                  .arg(value("nearest_standard_ohm", Unit::Ohm, 3), value("trim_ohm", Unit::Ohm)));
-    printLine(QStringLiteral("dissipation       %1 at full scale")
-                  .arg(value("dissipation_w", Unit::Watt, 3)));
+    const bool dc = rectifier == Rectifier::None;
+    printLine(dc ? QStringLiteral("multiplier        %1").arg(value("multiplier_ohm", Unit::Ohm))
+                 : QStringLiteral("multiplier        %1 (ideal diodes %2)")
+                       .arg(value("multiplier_ohm", Unit::Ohm),
+                            value("multiplier_ideal_ohm", Unit::Ohm)));
+    printLine(dc ? QStringLiteral("sensitivity       %1")
+                       .arg(value("sensitivity_ohm_per_volt", Unit::OhmPerVolt))
+                 : QStringLiteral("sensitivity       %1 (ideal diodes), %2 effective")
+                       .arg(value("sensitivity_ohm_per_volt", Unit::OhmPerVolt),
+                            value("effective_sensitivity_ohm_per_volt", Unit::OhmPerVolt)));
+    if (json.value(QStringLiteral("trim_ohm")).isNull()) {
+        printLine(QStringLiteral("E96 not above     %1; %2")
+                      .arg(value("nearest_standard_ohm", Unit::Ohm, 3),
+                           json.value(QStringLiteral("trim_note")).toString()));
+    } else {
+        printLine(
+            QStringLiteral("E96 not above     %1 + trim %2")
+                .arg(value("nearest_standard_ohm", Unit::Ohm, 3), value("trim_ohm", Unit::Ohm)));
+    }
+    printLine(QStringLiteral("dissipation       %1 at full scale, %2 across it at 120 %")
+                  .arg(value("dissipation_w", Unit::Watt, 3),
+                       value("voltage_overrange_v", Unit::Volt, 3)));
     if (json.value(QStringLiteral("caution")).isString()) {
         printLine(QStringLiteral("caution           ") +
                   json.value(QStringLiteral("caution")).toString());
@@ -197,21 +199,35 @@ int runMultiplier(const QStringList& arguments) {
     addValueOption(parser, QStringLiteral("range"),
                    QStringLiteral("Full-scale voltage of the range (e.g. 10V)."),
                    QStringLiteral("V"));
-    parseOptions(parser, command, arguments);
+    addValueOption(parser, QStringLiteral("rating"),
+                   QStringLiteral("Power rating of the multiplier resistor (default 0.25W)."),
+                   QStringLiteral("W"));
+    addValueOption(parser, QStringLiteral("voltage-rating"),
+                   QStringLiteral("Largest working voltage of one multiplier resistor (default "
+                                  "250V, typical of a 0.25 W film resistor; common practice)."),
+                   QStringLiteral("V"));
+    parseOptions(parser, command, arguments, ReadsValues::Yes);
     if (helpRequested(parser, command)) {
         return 0;
     }
     const Rectifier rectifier = rectifierFrom(parser, QStringLiteral("none"));
     const RectifierCircuit circuit = circuitFrom(parser, rectifier, 0.0);
     const double range_volts = requireQuantity(parser, QStringLiteral("range"), Unit::Volt);
+    const double watts_rating =
+        optionalQuantity(parser, QStringLiteral("rating"), Unit::Watt).value_or(kTypicalRating_W);
+    const double volts_rating =
+        optionalQuantity(parser, QStringLiteral("voltage-rating"), Unit::Volt)
+            .value_or(kTypicalVoltageRating_V);
     const RectifierMeter meter = meterFrom(parser, circuit);
     const MultiplierSolution solution = solveMultiplier(meter, range_volts);
 
     const double ohms = solution.multiplier_ohms;
     const bool positive = ohms > 0.0;
     const ResistorChoice choice = positive ? chooseResistor(ohms, ESeries::E96) : ResistorChoice{};
-    const Dissipation heat =
-        positive ? dissipation(ohms, solution.multiplier_rms_amps_fs) : Dissipation{};
+    // rms current and voltage: the working voltage of a resistor is given as DC or AC rms.
+    const Dissipation heat = positive ? dissipation(ohms, solution.multiplier_rms_amps_fs,
+                                                    watts_rating, kTypicalDerating, volts_rating)
+                                      : Dissipation{};
     QJsonObject json;
     json[QStringLiteral("multiplier_ohm")] = jsonNumber(ohms);
     json[QStringLiteral("multiplier_ideal_ohm")] = jsonNumber(solution.ideal_multiplier_ohms);
@@ -223,15 +239,25 @@ int runMultiplier(const QStringList& arguments) {
     json[QStringLiteral("effective_sensitivity_ohm_per_volt")] =
         jsonNumber(1.0 / solution.multiplier_rms_amps_fs);
     json[QStringLiteral("nearest_standard_ohm")] = jsonNumber(choice.ohms_standard);
-    json[QStringLiteral("trim_ohm")] = jsonNumber(choice.ohms_trim);
+    json[QStringLiteral("trim_ohm")] =
+        choice.trimPractical ? jsonNumber(choice.ohms_trim) : QJsonValue(QJsonValue::Null);
+    json[QStringLiteral("trim_note")] = choice.trimPractical
+                                            ? QJsonValue(QJsonValue::Null)
+                                            : QJsonValue(QString::fromStdString(choice.trimNote));
     json[QStringLiteral("dissipation_w")] = jsonNumber(heat.watts_fs);
+    json[QStringLiteral("voltage_overrange_v")] = jsonNumber(heat.volts_overrange);
+    json[QStringLiteral("exceeds_rating")] = heat.overRating;
+    json[QStringLiteral("exceeds_derated_rating")] = heat.aboveDeratedRating;
+    json[QStringLiteral("exceeds_voltage_rating")] = heat.overVoltageRating;
     json[QStringLiteral("multiplier_rms_current_a")] = jsonNumber(solution.multiplier_rms_amps_fs);
-    json[QStringLiteral("caution")] = cautionFor(range_volts, rectifier, heat);
+    json[QStringLiteral("caution")] =
+        cautionFor(hazardCaution(range_volts, voltageKind(rectifier)),
+                   positive ? ratingCaution(heat, "the multiplier") : std::nullopt);
     if (parser.isSet(QStringLiteral("json"))) {
         printJson(json);
         return 0;
     }
-    printMultiplier(json);
+    printMultiplier(json, rectifier);
     return 0;
 }
 
@@ -262,7 +288,7 @@ int runIndication(const QStringList& arguments) {
     addMovementOptions(parser);
     addDiodeOptions(parser);
     addIndicationOptions(parser);
-    parseOptions(parser, command, arguments);
+    parseOptions(parser, command, arguments, ReadsValues::Yes);
     if (helpRequested(parser, command)) {
         return 0;
     }
@@ -289,6 +315,12 @@ int runIndication(const QStringList& arguments) {
     json[QStringLiteral("indicated")] = jsonNumber(indication.indicated);
     json[QStringLiteral("error_percent_of_range")] = jsonNumber(indication.error_percent_of_range);
     json[QStringLiteral("input_v")] = jsonNumber(indication.input_rms_volts);
+    // The test value on the terminals, against the IEC 61010-1 hazardous-live limits.
+    json[QStringLiteral("caution")] = cautionFor(
+        rectifier == Rectifier::None ? hazardCaution(input_volts, VoltageKind::Dc)
+        : input_volts > 0.0 ? hazardCaution(input_volts, VoltageKind::AcRms, input.crestFactor())
+                            : std::nullopt,
+        std::nullopt);
     if (parser.isSet(QStringLiteral("json"))) {
         printJson(json);
         return 0;
@@ -299,169 +331,10 @@ int runIndication(const QStringList& arguments) {
                   .arg(eng(indication.indicated, Unit::Volt), eng(input_volts, Unit::Volt)));
     printLine(QStringLiteral("error             %1 of range")
                   .arg(eng(indication.error_percent_of_range, Unit::Percent, 3)));
-    return 0;
-}
-
-double sampleVolts(const QString& where, const QString& cell, bool decimalComma) {
-    const QString escaped = escapedCell(cell);
-    if (escaped != cell) {
-        // The parser's own message would quote the raw text, cut short at a NUL.
-        throw UsageError(
-            QStringLiteral("%1 \"%2\": a control character in the cell").arg(where, escaped));
+    if (json.value(QStringLiteral("caution")).isString()) {
+        printLine(QStringLiteral("caution           ") +
+                  json.value(QStringLiteral("caution")).toString());
     }
-    try {
-        ParseOptions options;
-        options.decimalComma = decimalComma;
-        return parseValue(cell.toStdString(), Unit::Volt, options);
-    } catch (const QuantityError& error) {
-        throw UsageError(
-            QStringLiteral("%1 \"%2\": %3")
-                .arg(where, escapedCell(cell), escapedCell(QString::fromStdString(error.what()))));
-    }
-}
-
-// The column v of a samples CSV; n and t may number or time the samples but are not read, since
-// the samples are taken as evenly spaced in file order. Any other column is refused.
-int sampleColumn(const CsvTable& csv) {
-    csv.requireKnownColumns({QStringLiteral("v"), QStringLiteral("n"), QStringLiteral("t")});
-    const int column = csv.column(QStringLiteral("v"));
-    if (column < 0) {
-        throw UsageError(QStringLiteral("%1: the header must name the column v (optional, not "
-                                        "read: n, t)")
-                             .arg(csv.where(csv.header.line)));
-    }
-    return column;
-}
-
-// One period of samples: a CSV with a header line, or else one value per line. A sample starts
-// with a digit, a sign or a point, so a first line starting with a letter or a quote is a header.
-std::vector<double> readSamples(const QString& path, bool decimalComma) {
-    const std::vector<CsvLine> lines = readDataLines(path, QStringLiteral("samples"));
-    std::vector<double> volts;
-    const QString first = lines.empty() ? QString() : lines.front().text.trimmed();
-    const bool table =
-        !first.isEmpty() && (first.front().isLetter() || first.front() == QLatin1Char('"'));
-    if (table) {
-        const CsvTable csv = tableFromLines(path, lines);
-        const int column = sampleColumn(csv);
-        for (const CsvRow& row : csv.rows) {
-            volts.push_back(sampleVolts(csv.where(row.line) + QStringLiteral(", column v"),
-                                        row.cells[column], decimalComma));
-        }
-    } else {
-        for (const CsvLine& line : lines) {
-            volts.push_back(sampleVolts(path + QStringLiteral(" line %1").arg(line.number),
-                                        line.text.trimmed(), decimalComma));
-        }
-    }
-    if (volts.size() < 2) {
-        throw UsageError(QStringLiteral("%1: one period needs at least 2 samples, found %2")
-                             .arg(path)
-                             .arg(volts.size()));
-    }
-    return volts;
-}
-
-// The waveform of `calc waveform`: samples from a file, or a shape with its AC part by rms or
-// peak and a DC offset for the sine.
-Waveform waveformFrom(const QCommandLineParser& parser) {
-    if (parser.isSet(QStringLiteral("samples"))) {
-        for (const char* other : {"waveform", "rms", "peak", "offset"}) {
-            if (parser.isSet(QLatin1String(other))) {
-                throw UsageError(QStringLiteral("option --samples gives the whole waveform; it "
-                                                "cannot go with --%1")
-                                     .arg(QLatin1String(other)));
-            }
-        }
-        return Waveform::sampled(readSamples(parser.value(QStringLiteral("samples")),
-                                             parser.isSet(QStringLiteral("decimal-comma"))));
-    }
-    const WaveShape shape = shapeFrom(parser);
-    if (parser.isSet(QStringLiteral("rms")) && parser.isSet(QStringLiteral("peak"))) {
-        throw UsageError(QStringLiteral("give either --rms or --peak, not both"));
-    }
-    const auto peak_volts = optionalQuantity(parser, QStringLiteral("peak"), Unit::Volt);
-    const double rms_volts =
-        optionalQuantity(parser, QStringLiteral("rms"), Unit::Volt).value_or(1.0);
-    const double offset_volts =
-        optionalQuantity(parser, QStringLiteral("offset"), Unit::Volt).value_or(0.0);
-    if (offset_volts != 0.0 && shape != WaveShape::Sine) {
-        throw UsageError(QStringLiteral("option --offset applies to --waveform sine only"));
-    }
-    if ((peak_volts && *peak_volts < 0.0) || rms_volts < 0.0) {
-        throw UsageError(QStringLiteral("options --rms and --peak cannot be negative"));
-    }
-    Waveform wave = Waveform::withRms(shape, rms_volts);
-    if (peak_volts) {
-        wave = wave.peakVolts() > 0.0 ? wave.scaled(*peak_volts / wave.peakVolts())
-                                      : Waveform::withRms(shape, 0.0);
-    }
-    if (offset_volts != 0.0) {
-        wave = Waveform::sineWithOffset(wave.peakVolts(), offset_volts);
-    }
-    return wave;
-}
-
-int runWaveform(const QStringList& arguments) {
-    const QString command = QStringLiteral("calc waveform");
-    QCommandLineParser parser;
-    parser.setApplicationDescription(
-        QStringLiteral("True rms, rectified average and form factor of a waveform, and what an "
-                       "average-responding meter scaled in rms of a sine reads for it."));
-    addValueOption(parser, QStringLiteral("waveform"),
-                   QStringLiteral("sine (default), square or triangle."), QStringLiteral("SHAPE"));
-    addValueOption(parser, QStringLiteral("rms"),
-                   QStringLiteral("True rms of the AC part (default 1V)."), QStringLiteral("V"));
-    addValueOption(parser, QStringLiteral("peak"),
-                   QStringLiteral("Peak of the AC part, instead of --rms."), QStringLiteral("V"));
-    addValueOption(parser, QStringLiteral("offset"),
-                   QStringLiteral("DC offset added to a sine (default 0V)."), QStringLiteral("V"));
-    addValueOption(parser, QStringLiteral("samples"),
-                   QStringLiteral("File with one period of evenly spaced samples in volts: one "
-                                  "value per line, or a CSV whose header has a column v and "
-                                  "optionally n or t, not read (separator ';' if the header "
-                                  "has one, else ','). Replaces "
-                                  "--waveform, --rms, --peak and --offset."),
-                   QStringLiteral("FILE"));
-    addValueOption(parser, QStringLiteral("rectifier"),
-                   QStringLiteral("Meter's rectifier: bridge (default) or half."),
-                   QStringLiteral("KIND"));
-    parseOptions(parser, command, arguments);
-    if (helpRequested(parser, command)) {
-        return 0;
-    }
-    const Waveform wave = waveformFrom(parser);
-    const QString kind =
-        chooseOne(parser, QStringLiteral("rectifier"),
-                  {QStringLiteral("bridge"), QStringLiteral("half")}, QStringLiteral("bridge"));
-    const Rectification rectification =
-        kind == QStringLiteral("half") ? Rectification::HalfWave : Rectification::FullWave;
-    const AverageRespondingReading reading = averageRespondingReading(wave, rectification);
-
-    QJsonObject json;
-    json[QStringLiteral("waveform")] = QString::fromUtf8(shapeName(wave.shape()).data());
-    if (wave.shape() == WaveShape::Sampled) {
-        json[QStringLiteral("samples")] = static_cast<qint64>(wave.samplesVolts().size());
-    }
-    json[QStringLiteral("rms_v")] = jsonNumber(wave.rms());
-    json[QStringLiteral("average_v")] = jsonNumber(wave.rectifiedAverage());
-    json[QStringLiteral("half_wave_average_v")] = jsonNumber(wave.halfWaveAverage());
-    json[QStringLiteral("mean_v")] = jsonNumber(wave.mean());
-    json[QStringLiteral("form_factor")] = jsonNumber(wave.formFactor());
-    json[QStringLiteral("crest_factor")] = jsonNumber(wave.crestFactor());
-    json[QStringLiteral("reading_v")] = jsonNumber(reading.indicated_volts);
-    json[QStringLiteral("error_percent")] = jsonNumber(reading.error_percent);
-    if (parser.isSet(QStringLiteral("json"))) {
-        printJson(json);
-        return 0;
-    }
-    printLine(QStringLiteral("true rms          %1").arg(eng(wave.rms(), Unit::Volt)));
-    printLine(QStringLiteral("rectified average %1").arg(eng(wave.rectifiedAverage(), Unit::Volt)));
-    printLine(QStringLiteral("form factor       %1")
-                  .arg(QString::fromStdString(formatPlain(wave.formFactor()))));
-    printLine(QStringLiteral("average-responding meter reads %1 (%2)")
-                  .arg(eng(reading.indicated_volts, Unit::Volt),
-                       eng(reading.error_percent, Unit::Percent, 3)));
     return 0;
 }
 

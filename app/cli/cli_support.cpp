@@ -13,11 +13,13 @@ UsageError::UsageError(const QString& message)
     : std::runtime_error(message.toStdString()) {}
 
 void parseOptions(QCommandLineParser& parser, const QString& commandLine,
-                  const QStringList& arguments) {
+                  const QStringList& arguments, ReadsValues readsValues) {
     parser.setSingleDashWordOptionMode(QCommandLineParser::ParseAsLongOptions);
     parser.addOption({QStringLiteral("json"), QStringLiteral("Print the result as JSON.")});
-    parser.addOption({QStringLiteral("decimal-comma"),
-                      QStringLiteral("Read values written with a decimal comma (4,7k).")});
+    if (readsValues == ReadsValues::Yes) {
+        parser.addOption({QStringLiteral("decimal-comma"),
+                          QStringLiteral("Read values written with a decimal comma (4,7k).")});
+    }
     parser.addOption({{QStringLiteral("h"), QStringLiteral("help")},
                       QStringLiteral("Show the options of this command.")});
     QStringList withProgram = arguments;
@@ -25,6 +27,11 @@ void parseOptions(QCommandLineParser& parser, const QString& commandLine,
     if (!parser.parse(withProgram)) {
         throw UsageError(parser.errorText());
     }
+}
+
+bool decimalCommaSet(const QCommandLineParser& parser) {
+    // optionNames() lists the options given; isSet() would warn about an option not offered.
+    return parser.optionNames().contains(QStringLiteral("decimal-comma"));
 }
 
 bool helpRequested(const QCommandLineParser& parser, const QString& commandLine) {
@@ -48,7 +55,7 @@ std::optional<double> optionalQuantity(const QCommandLineParser& parser, const Q
     const QString text = parser.value(option);
     try {
         ParseOptions options;
-        options.decimalComma = parser.isSet(QStringLiteral("decimal-comma"));
+        options.decimalComma = decimalCommaSet(parser);
         return parseValue(text.toStdString(), unit, options);
     } catch (const QuantityError& error) {
         throw UsageError(QStringLiteral("option --%1 \"%2\": %3")

@@ -21,11 +21,17 @@ public:
     explicit UsageError(const QString& message);
 };
 
+// Whether a command reads values (quantities, CSV cells): only those offer --decimal-comma.
+enum class ReadsValues { No, Yes };
+
 // Parses `arguments` (those after the command name) against the options added to `parser`;
-// adds --json, --decimal-comma and --help. Throws UsageError naming the unknown or malformed
-// option.
+// adds --json, --help and, for a command that reads values, --decimal-comma. Throws
+// UsageError naming the unknown or malformed option.
 void parseOptions(QCommandLineParser& parser, const QString& commandLine,
-                  const QStringList& arguments);
+                  const QStringList& arguments, ReadsValues readsValues = ReadsValues::No);
+
+// True when --decimal-comma was given (false for commands that do not offer it).
+bool decimalCommaSet(const QCommandLineParser& parser);
 
 // True when --help was given: the usage text has then been printed to stdout.
 bool helpRequested(const QCommandLineParser& parser, const QString& commandLine);

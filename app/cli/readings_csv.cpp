@@ -5,8 +5,6 @@
 #include "app/cli/csv_table.h"
 #include "core/units/quantity.h"
 
-#include <QRegularExpression>
-
 namespace mw::cli {
 namespace {
 
@@ -32,7 +30,8 @@ CsvColumns columnsOf(const CsvTable& table) {
     return columns;
 }
 
-double cellValue(const QString& where, const QString& cell, Unit unit, bool decimalComma) {
+double cellValue(const QString& where, const QString& cell, Unit unit,
+                 const ParseOptions& options) {
     if (cell.isEmpty()) {
         throw UsageError(where + QStringLiteral(": empty"));
     }
@@ -43,8 +42,6 @@ double cellValue(const QString& where, const QString& cell, Unit unit, bool deci
             QStringLiteral("%1 \"%2\": a control character in the cell").arg(where, escaped));
     }
     try {
-        ParseOptions options;
-        options.decimalComma = decimalComma;
         return parseValue(cell.toStdString(), unit, options);
     } catch (const QuantityError& error) {
         throw UsageError(
@@ -54,7 +51,7 @@ double cellValue(const QString& where, const QString& cell, Unit unit, bool deci
 }
 
 EvaluationReading readRow(const CsvTable& table, const CsvRow& row, const CsvColumns& columns,
-                          Unit unit, bool decimalComma) {
+                          Unit unit, const ParseOptions& options) {
     auto cellAt = [&row](int column) {
         return column >= 0 ? row.cells[column] : QString();
     };
@@ -62,9 +59,8 @@ EvaluationReading readRow(const CsvTable& table, const CsvRow& row, const CsvCol
         return QStringLiteral("%1, column %2").arg(table.where(row.line), QLatin1String(column));
     };
     EvaluationReading reading;
-    reading.applied = cellValue(where("applied"), cellAt(columns.applied), unit, decimalComma);
-    reading.indicated =
-        cellValue(where("indicated"), cellAt(columns.indicated), unit, decimalComma);
+    reading.applied = cellValue(where("applied"), cellAt(columns.applied), unit, options);
+    reading.indicated = cellValue(where("indicated"), cellAt(columns.indicated), unit, options);
     const QString direction = cellAt(columns.direction).toLower();
     if (direction == QStringLiteral("down")) {
         reading.direction = Direction::Down;
@@ -88,12 +84,12 @@ EvaluationReading readRow(const CsvTable& table, const CsvRow& row, const CsvCol
 
 } // namespace
 
-ReadingsFile readReadingsCsv(const QString& path, Unit unit, bool decimalComma) {
+ReadingsFile readReadingsCsv(const QString& path, Unit unit, const ParseOptions& options) {
     const CsvTable table = tableFromLines(path, readDataLines(path, QStringLiteral("readings")));
     const CsvColumns columns = columnsOf(table);
     ReadingsFile file{path, {}, {}};
     for (const CsvRow& row : table.rows) {
-        file.readings.push_back(readRow(table, row, columns, unit, decimalComma));
+        file.readings.push_back(readRow(table, row, columns, unit, options));
         file.lines.push_back(row.line);
     }
     if (file.readings.empty()) {
@@ -102,18 +98,28 @@ ReadingsFile readReadingsCsv(const QString& path, Unit unit, bool decimalComma) 
     return file;
 }
 
-QString messageWithCsvLine(const QString& message, const ReadingsFile& file) {
-    static const QRegularExpression reading(QStringLiteral("^evaluation: reading (\\d+) "));
-    const QRegularExpressionMatch match = reading.match(message);
-    const qsizetype index = match.hasMatch() ? match.captured(1).toLongLong() - 1 : -1;
-    if (index < 0 || index >= static_cast<qsizetype>(file.lines.size())) {
-        return message;
+QString messageWithCsvLine(const EvaluationError& error, const ReadingsFile& file) {
+    const auto lineOf = [&file](std::optional<std::size_t> number) -> std::optional<int> {
+        if (!number || *number < 1 || *number > file.lines.size()) {
+            return std::nullopt;
+        }
+        return file.lines[*number - 1];
+    };
+    const std::optional<int> line = lineOf(error.readingNumber());
+    if (!line) {
+        return QString::fromStdString(error.what());
     }
-    return QStringLiteral("%1 line %2 (reading %3) ")
-               .arg(file.path)
-               .arg(file.lines[static_cast<std::size_t>(index)])
-               .arg(index + 1) +
-           message.mid(match.capturedLength());
+    QString message = QStringLiteral("%1 line %2 (reading %3) %4")
+                          .arg(file.path)
+                          .arg(*line)
+                          .arg(*error.readingNumber())
+                          .arg(QString::fromStdString(error.detail()));
+    if (const std::optional<int> earlier = lineOf(error.conflictingReadingNumber())) {
+        message += QStringLiteral("; reading %1 is on line %2")
+                       .arg(*error.conflictingReadingNumber())
+                       .arg(*earlier);
+    }
+    return message;
 }
 
 } // namespace mw::cli

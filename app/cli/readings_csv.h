@@ -19,12 +19,14 @@ struct ReadingsFile {
 };
 
 // Reads `path` (see csv_table.h for separators, quotes and skipped lines); values are parsed in
-// `unit`, with a decimal comma when `decimalComma`. Throws UsageError naming line and column.
-ReadingsFile readReadingsCsv(const QString& path, Unit unit, bool decimalComma);
+// `unit` with `options` (decimal comma; the power of ten of a bare number, the range's prefix).
+// A repeat cell gives the reading's repeat number; empty or absent, it is 0 (not numbered).
+// Throws UsageError naming line and column.
+ReadingsFile readReadingsCsv(const QString& path, Unit unit, const ParseOptions& options);
 
-// The engine numbers readings from 1 in file order ("evaluation: reading N …"); a person editing
-// the file wants its line, so the reading number is replaced by "FILE line L (reading N)".
-// Other messages come back unchanged.
-QString messageWithCsvLine(const QString& message, const ReadingsFile& file);
+// The engine numbers readings from 1 in file order; a person editing the file wants its
+// line, so an error about one reading becomes "FILE line L (reading N) …", naming the line of
+// a conflicting earlier reading too. Other errors come back as their message.
+QString messageWithCsvLine(const EvaluationError& error, const ReadingsFile& file);
 
 } // namespace mw::cli

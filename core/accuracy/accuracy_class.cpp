@@ -32,6 +32,10 @@ bool isStandardClassIndex(double classIndex) {
 }
 
 double fiducialValue(const ScaleRange& range) {
+    return exactFiducialValue(range).toDouble();
+}
+
+ExactDecimal exactFiducialValue(const ScaleRange& range) {
     if (!std::isfinite(range.lower) || !std::isfinite(range.upper) ||
         !(range.upper > range.lower)) {
         throw std::invalid_argument("scale range: the upper limit must be greater than the lower");
@@ -40,20 +44,22 @@ double fiducialValue(const ScaleRange& range) {
         if (!(*range.fiducialOverride > 0.0) || !std::isfinite(*range.fiducialOverride)) {
             throw std::invalid_argument("scale range: the fiducial value must be > 0");
         }
-        return *range.fiducialOverride;
+        return ExactDecimal::fromDouble(*range.fiducialOverride);
     }
+    const ExactDecimal lower = ExactDecimal::fromDouble(range.lower).abs();
+    const ExactDecimal upper = ExactDecimal::fromDouble(range.upper).abs();
     switch (range.type) {
     case ScaleType::ZeroAtEnd:
         // The zero may sit at either end (e.g. -10 … 0 V): the limit farther from it.
-        return std::max(std::fabs(range.lower), std::fabs(range.upper));
+        return std::max(lower, upper);
     case ScaleType::ZeroInside:
         if (!(range.lower < 0.0 && range.upper > 0.0)) {
             throw std::invalid_argument("scale range: a zero-inside scale needs a negative "
                                         "lower and a positive upper limit");
         }
-        return std::fabs(range.lower) + std::fabs(range.upper);
+        return lower + upper;
     case ScaleType::NoZero:
-        return std::max(std::fabs(range.lower), std::fabs(range.upper));
+        return std::max(lower, upper);
     case ScaleType::NonLinear:
         throw std::invalid_argument("scale range: a non-linear scale needs its fiducial value "
                                     "(the scale length) given explicitly");
@@ -61,12 +67,27 @@ double fiducialValue(const ScaleRange& range) {
     throw std::invalid_argument("scale range: unknown scale type");
 }
 
-double permissibleError(double classIndex, double fiducial) {
+namespace {
+
+ExactDecimal percentOf(double classIndex, const ExactDecimal& fiducial) {
     if (!(classIndex > 0.0) || !std::isfinite(classIndex)) {
         throw std::invalid_argument("accuracy class: the class index must be > 0, got " +
                                     formatPlain(classIndex));
     }
-    return classIndex / 100.0 * fiducial;
+    return (ExactDecimal::fromDouble(classIndex) * fiducial).timesPowerOfTen(-2);
+}
+
+} // namespace
+
+double permissibleError(double classIndex, double fiducial) {
+    if (!std::isfinite(fiducial)) {
+        throw std::invalid_argument("accuracy class: the fiducial value must be finite");
+    }
+    return percentOf(classIndex, ExactDecimal::fromDouble(fiducial)).toDouble();
+}
+
+ExactDecimal exactPermissibleError(double classIndex, const ScaleRange& range) {
+    return percentOf(classIndex, exactFiducialValue(range));
 }
 
 } // namespace mw

@@ -3,6 +3,7 @@
 #pragma once
 
 #include "core/model/vocabulary.h"
+#include "core/units/decimal.h"
 
 #include <optional>
 #include <span>
@@ -30,7 +31,15 @@ struct ScaleRange {
 // Throws std::invalid_argument naming what is missing or inconsistent.
 double fiducialValue(const ScaleRange& range);
 
-// Limit of intrinsic error (± this value, same unit as the range): class index % of fiducial.
+// Limit of intrinsic error (± this value, same unit as the range): class index % of fiducial,
+// computed exactly on the decimals and returned as the nearest double (1.5 % of 10 V is the
+// double nearest 0.15, not 0.15000000000000002).
 double permissibleError(double classIndex, double fiducial);
+
+// The same two values in exact decimal arithmetic on the limits and the class index as typed,
+// for decisions that must agree with the numbers on the record (IEC 60051-1: errors shall not
+// exceed the limits). Throw like their double counterparts.
+ExactDecimal exactFiducialValue(const ScaleRange& range);
+ExactDecimal exactPermissibleError(double classIndex, const ScaleRange& range);
 
 } // namespace mw

@@ -106,9 +106,10 @@ ReferenceSpec parseLimits(const Source& whole, const std::string& text) {
     return spec;
 }
 
-double parseAmount(const Source& whole, std::string_view text, std::size_t offset, Unit unit) {
+double parseAmount(const Source& whole, std::string_view text, std::size_t offset, Unit unit,
+                   const ParseOptions& options) {
     try {
-        const double value = parseValue(text, unit);
+        const double value = parseValue(text, unit, options);
         if (!(value >= 0.0) || !std::isfinite(value)) {
             fail(whole, offset, "the value must be >= 0");
         }
@@ -118,7 +119,8 @@ double parseAmount(const Source& whole, std::string_view text, std::size_t offse
     }
 }
 
-ReferenceSpec parseCertificate(const Source& whole, const std::string& text, Unit unit) {
+ReferenceSpec parseCertificate(const Source& whole, const std::string& text, Unit unit,
+                               const ParseOptions& options) {
     // "U=1mV,k=2"; the comma is required because "1mVk" would be ambiguous.
     const std::size_t comma = text.find(',');
     const bool hasK = comma != std::string::npos && (text.compare(comma + 1, 2, "k=") == 0 ||
@@ -128,7 +130,8 @@ ReferenceSpec parseCertificate(const Source& whole, const std::string& text, Uni
     }
     ReferenceSpec spec;
     spec.form = ReferenceSpecForm::Certificate;
-    spec.fixedValue = parseAmount(whole, std::string_view(text).substr(2, comma - 2), 2, unit);
+    spec.fixedValue =
+        parseAmount(whole, std::string_view(text).substr(2, comma - 2), 2, unit, options);
     const std::string kText = text.substr(comma + 3);
     const auto [end, error] =
         std::from_chars(kText.data(), kText.data() + kText.size(), spec.coverageK);
@@ -136,6 +139,32 @@ ReferenceSpec parseCertificate(const Source& whole, const std::string& text, Uni
         fail(whole, comma + 3, "the coverage factor k must be a number > 0");
     }
     return spec;
+}
+
+// Splits a trailing ",dof=N" off `compact` and returns N (infinity without one).
+double takeDegreesOfFreedom(const Source& whole, std::string& compact) {
+    std::string lower;
+    for (const char c : compact) {
+        lower += static_cast<char>(std::tolower(static_cast<unsigned char>(c)));
+    }
+    const std::size_t at = lower.rfind(",dof=");
+    if (at == std::string::npos) {
+        return kInfiniteDof;
+    }
+    const std::string number = lower.substr(at + 5);
+    double dof = 0.0;
+    if (number == "inf" || number == "infinity") {
+        dof = kInfiniteDof;
+    } else {
+        const auto [end, error] =
+            std::from_chars(number.data(), number.data() + number.size(), dof);
+        if (error != std::errc() || end != number.data() + number.size() || !(dof > 0.0) ||
+            !std::isfinite(dof)) {
+            fail(whole, at + 5, "the degrees of freedom must be a number > 0 or inf");
+        }
+    }
+    compact.erase(at);
+    return dof;
 }
 
 } // namespace
@@ -158,6 +187,7 @@ UncertaintyComponent referenceComponent(const ReferenceSpec& spec, double readin
     UncertaintyComponent component;
     component.name = "reference standard";
     component.value = specValue(spec, reading, rangeValue);
+    component.dof = spec.dof;
     if (spec.form == ReferenceSpecForm::Certificate) {
         component.distribution = Distribution::Normal;
         component.coverageK = spec.coverageK;
@@ -167,21 +197,23 @@ UncertaintyComponent referenceComponent(const ReferenceSpec& spec, double readin
     return component;
 }
 
-ReferenceSpec parseReferenceSpec(std::string_view text, Unit unit) {
+ReferenceSpec parseReferenceSpec(std::string_view text, Unit unit, const ParseOptions& options) {
     const Source source = compactForm(text);
-    const std::string& compact = source.compact;
+    std::string compact = source.compact;
     if (compact.empty()) {
         fail(source, 0, "empty; expected e.g. 0.02%rdg+0.01%rng, 20ppm+5ppm, 0.5mV or U=1mV,k=2");
     }
-    if (compact.rfind("U=", 0) == 0 || compact.rfind("u=", 0) == 0) {
-        return parseCertificate(source, compact, unit);
-    }
-    if (compact.find('%') != std::string::npos || compact.find("ppm") != std::string::npos) {
-        return parseLimits(source, compact);
-    }
+    const double dof = takeDegreesOfFreedom(source, compact);
     ReferenceSpec spec;
-    spec.form = ReferenceSpecForm::Fixed;
-    spec.fixedValue = parseAmount(source, compact, 0, unit);
+    if (compact.rfind("U=", 0) == 0 || compact.rfind("u=", 0) == 0) {
+        spec = parseCertificate(source, compact, unit, options);
+    } else if (compact.find('%') != std::string::npos || compact.find("ppm") != std::string::npos) {
+        spec = parseLimits(source, compact);
+    } else {
+        spec.form = ReferenceSpecForm::Fixed;
+        spec.fixedValue = parseAmount(source, compact, 0, unit, options);
+    }
+    spec.dof = dof;
     return spec;
 }
 
@@ -203,7 +235,43 @@ std::string formatReferenceSpec(const ReferenceSpec& spec) {
         std::snprintf(buffer, sizeof buffer, "U=%.17g,k=%.12g", spec.fixedValue, spec.coverageK);
         break;
     }
-    return buffer;
+    std::string text = buffer;
+    if (std::isfinite(spec.dof)) {
+        std::snprintf(buffer, sizeof buffer, ",dof=%.12g", spec.dof);
+        text += buffer;
+    }
+    return text;
+}
+
+std::string describeReferenceSpec(const ReferenceSpec& spec, Unit unit) {
+    const auto plain = [](double value) {
+        char buffer[32];
+        std::snprintf(buffer, sizeof buffer, "%.6g", value);
+        return std::string(buffer);
+    };
+    std::string text;
+    switch (spec.form) {
+    case ReferenceSpecForm::PercentReadingRange:
+        text = "\u00B1(" + plain(spec.fractionOfReading * 1e2) + " % of reading + " +
+               plain(spec.fractionOfRange * 1e2) + " % of range)";
+        break;
+    case ReferenceSpecForm::PpmReadingRange:
+        text = "\u00B1(" + plain(spec.fractionOfReading * 1e6) + " ppm of reading + " +
+               plain(spec.fractionOfRange * 1e6) + " ppm of range)";
+        break;
+    case ReferenceSpecForm::Fixed:
+        text = "\u00B1" + formatEngineering(spec.fixedValue, 3, unit);
+        break;
+    case ReferenceSpecForm::Certificate:
+        text = "U = " + formatEngineering(spec.fixedValue, 3, unit) +
+               " (k = " + plain(spec.coverageK) +
+               (std::isfinite(spec.dof) ? ", \u03BD = " + plain(spec.dof) : std::string()) + ")";
+        return text;
+    }
+    if (std::isfinite(spec.dof)) {
+        text += " with \u03BD = " + plain(spec.dof);
+    }
+    return text;
 }
 
 } // namespace mw

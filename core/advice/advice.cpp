@@ -5,6 +5,8 @@
 #include <cmath>
 #include <numeric>
 #include <stdexcept>
+#include <string>
+#include <vector>
 
 namespace mw {
 namespace {
@@ -120,12 +122,30 @@ std::string_view toText(LikelyCause cause) {
     return "?";
 }
 
+std::string_view effectName(LikelyCause cause) {
+    switch (cause) {
+    case LikelyCause::None:
+        return "no effect";
+    case LikelyCause::Zero:
+        return "zero offset";
+    case LikelyCause::Span:
+        return "span error";
+    case LikelyCause::RectifierNonlinearity:
+        return "low-end non-linearity of the rectifier";
+    case LikelyCause::ScaleNonlinearity:
+        return "non-linearity across the scale";
+    case LikelyCause::Friction:
+        return "hysteresis";
+    }
+    return "?";
+}
+
 std::string describeCause(LikelyCause cause, InstrumentKind kind) {
     const bool ammeter = kind == InstrumentKind::DcAmmeter;
     switch (cause) {
     case LikelyCause::None:
-        return "no adjustment indicated: zero, span, non-linearity and hysteresis are each below "
-               "a fifth of the permissible error";
+        return "no single effect (zero, span, non-linearity, hysteresis) reaches a quarter of "
+               "the permissible error and stands out from the measurement uncertainty";
     case LikelyCause::Zero:
         return "zero offset: every reading is shifted by the same amount; set the mechanical "
                "zero with the zero adjuster (meter in its reference position, no signal)";
@@ -151,6 +171,91 @@ std::string describeCause(LikelyCause cause, InstrumentKind kind) {
     return {};
 }
 
+namespace {
+
+std::string percentOfLimit(double fraction) {
+    return formatEngineering(100.0 * fraction, 3, Unit::Percent) + " of the limit of error";
+}
+
+double worstFraction(const AdviceInput& input) {
+    double worst = 0.0;
+    for (const PointErrors& point : input.points) {
+        for (const auto& error : {point.errorUp, point.errorDown}) {
+            if (error) {
+                worst = std::max(worst, std::fabs(*error) / input.permissibleError);
+            }
+        }
+    }
+    return worst;
+}
+
+std::vector<AdviceEffect> rankedEffects(const AdviceInput& input, const Advice& advice) {
+    const LikelyCause nonlinear = looksLikeRectifier(input, advice.fit)
+                                      ? LikelyCause::RectifierNonlinearity
+                                      : LikelyCause::ScaleNonlinearity;
+    std::vector<AdviceEffect> effects{
+        {LikelyCause::Zero, advice.zeroEffect, 0.0, false},
+        {LikelyCause::Span, advice.spanEffect, 0.0, false},
+        {nonlinear, advice.fit.nonlinearity, 0.0, false},
+        {LikelyCause::Friction, 0.5 * advice.hysteresis, 0.0, false},
+    };
+    for (AdviceEffect& effect : effects) {
+        effect.fractionOfLimit = effect.size / input.permissibleError;
+        effect.significant = effect.fractionOfLimit >= kSignificantFractionOfLimit &&
+                             effect.size > input.expandedUncertainty;
+    }
+    const auto curved = [](const AdviceEffect& e) {
+        return e.significant && (e.cause == LikelyCause::RectifierNonlinearity ||
+                                 e.cause == LikelyCause::ScaleNonlinearity);
+    };
+    std::stable_sort(effects.begin(), effects.end(), [&curved](const auto& a, const auto& b) {
+        if (curved(a) != curved(b)) {
+            return curved(a);
+        }
+        return a.size > b.size;
+    });
+    return effects;
+}
+
+std::string effectInWords(const AdviceEffect& effect, const AdviceInput& input) {
+    return describeCause(effect.cause, input.kind) + " (up to " +
+           formatEngineering(effect.size, 3, input.unit) + ", " +
+           percentOfLimit(effect.fractionOfLimit) + ")";
+}
+
+std::string explain(const AdviceInput& input, const Advice& advice) {
+    const std::string worst =
+        "the largest error is " + percentOfLimit(advice.worstErrorFractionOfLimit);
+    std::vector<const AdviceEffect*> significant;
+    for (const AdviceEffect& effect : advice.effects) {
+        if (effect.significant) {
+            significant.push_back(&effect);
+        }
+    }
+    if (!advice.adjustmentNeeded) {
+        std::string text = "no adjustment needed: " + worst + " (adjustment is advised above " +
+                           formatPlain(100.0 * input.adjustAboveFractionOfLimit) + " %)";
+        if (!significant.empty()) {
+            text += "; to gain margin, the largest effect is the " +
+                    effectInWords(*significant.front(), input);
+        }
+        return text;
+    }
+    if (significant.empty()) {
+        return "adjustment advised, as " + worst + ", but " +
+               describeCause(LikelyCause::None, input.kind) +
+               "; repeat the readings or read the scale more finely before adjusting";
+    }
+    std::string text =
+        "adjustment advised, as " + worst + ": " + effectInWords(*significant.front(), input);
+    for (std::size_t i = 1; i < significant.size(); ++i) {
+        text += "; also " + effectInWords(*significant[i], input);
+    }
+    return text;
+}
+
+} // namespace
+
 Advice adviseAdjustment(const AdviceInput& input) {
     if (!(input.permissibleError > 0.0)) {
         throw std::invalid_argument("advice: the permissible error must be > 0");
@@ -160,42 +265,20 @@ Advice adviseAdjustment(const AdviceInput& input) {
     advice.hysteresis = maxHysteresis(input.points);
     advice.zeroEffect = std::fabs(advice.fit.zeroOffset);
     advice.spanEffect = std::fabs(advice.fit.spanFactor - 1.0) * std::fabs(input.upperLimit);
-    const LikelyCause nonlinear = looksLikeRectifier(input, advice.fit)
-                                      ? LikelyCause::RectifierNonlinearity
-                                      : LikelyCause::ScaleNonlinearity;
-    std::vector<std::pair<double, LikelyCause>> effects{
-        {advice.zeroEffect, LikelyCause::Zero},
-        {advice.spanEffect, LikelyCause::Span},
-        {advice.fit.nonlinearity, nonlinear},
-        {advice.hysteresis, LikelyCause::Friction},
-    };
-    const double threshold = kSignificantFractionOfLimit * input.permissibleError;
-    // A significant non-linearity comes first: zero and span cannot remove it, and part of a
-    // curved error always shows up in the fitted zero and span as well.
-    std::stable_sort(effects.begin(), effects.end(), [threshold](const auto& a, const auto& b) {
-        const bool curvedA = a.second == LikelyCause::RectifierNonlinearity ||
-                             a.second == LikelyCause::ScaleNonlinearity;
-        const bool curvedB = b.second == LikelyCause::RectifierNonlinearity ||
-                             b.second == LikelyCause::ScaleNonlinearity;
-        if (curvedA != curvedB && (curvedA ? a.first : b.first) >= threshold) {
-            return curvedA;
-        }
-        return a.first > b.first;
-    });
-    for (const auto& [size, cause] : effects) {
-        if (size < threshold) {
+    advice.effects = rankedEffects(input, advice);
+    advice.worstErrorFractionOfLimit = worstFraction(input);
+    advice.adjustmentNeeded = advice.worstErrorFractionOfLimit > input.adjustAboveFractionOfLimit;
+    for (const AdviceEffect& effect : advice.effects) {
+        if (!effect.significant) {
             continue;
         }
         if (advice.cause == LikelyCause::None) {
-            advice.cause = cause;
+            advice.cause = effect.cause;
         } else {
-            advice.alsoSignificant.push_back(cause);
+            advice.alsoSignificant.push_back(effect.cause);
         }
     }
-    advice.explanation = describeCause(advice.cause, input.kind);
-    for (LikelyCause other : advice.alsoSignificant) {
-        advice.explanation += "; also " + describeCause(other, input.kind);
-    }
+    advice.explanation = explain(input, advice);
     return advice;
 }
 

@@ -46,31 +46,59 @@ enum class LikelyCause {
 
 std::string_view toText(LikelyCause cause); // stable word: "none", "zero", "span", ...
 
+// Effects at or above this fraction of the permissible error may be called significant.
+inline constexpr double kSignificantFractionOfLimit = 0.25;
+// Adjustment is advised when the largest error exceeds this fraction of the limit (our own
+// default, after the 80 % that ILAC-G24 uses as an example fraction of the tolerance in its
+// staircase method, from memory); below it a meter that passes is left alone.
+inline constexpr double kAdjustAboveFractionOfLimit = 0.8;
+
 struct AdviceInput {
     InstrumentKind kind = InstrumentKind::DcVoltmeter;
     Unit unit = Unit::Volt;        // of the applied values and errors, for messages
     double upperLimit = 0.0;       // of the range, to size the span effect at full scale
     double permissibleError = 0.0; // ± limit at every point, for judging what is significant
+    // Expanded uncertainty of the readings: an effect no larger than this cannot be told from
+    // the scatter and reading resolution of the measurement, so it is never called significant.
+    double expandedUncertainty = 0.0;
+    double adjustAboveFractionOfLimit = kAdjustAboveFractionOfLimit;
     std::vector<PointErrors> points;
     // Error the circuit model predicts for this meter at each point (same order), e.g. the
     // diode-drop curve of a rectifier instrument; used to recognise that shape.
     std::optional<std::vector<double>> predictedErrors;
 };
 
+// One effect and how much of an error of indication it accounts for at most.
+struct AdviceEffect {
+    LikelyCause cause = LikelyCause::None;
+    double size = 0.0;            // in the unit of the range
+    double fractionOfLimit = 0.0; // size / permissible error
+    // At least kSignificantFractionOfLimit of the limit and larger than the expanded
+    // uncertainty of the readings.
+    bool significant = false;
+};
+
 struct Advice {
     ZeroSpanFit fit;
-    double hysteresis = 0.0;
+    double hysteresis = 0.0; // largest |down − up|
     double zeroEffect = 0.0; // |zero offset|
     double spanEffect = 0.0; // |span factor − 1| · upper limit
-    LikelyCause cause = LikelyCause::None;
-    std::vector<LikelyCause> alsoSignificant; // other effects above the threshold
+    // Zero, span, non-linearity and hysteresis, largest first (a significant non-linearity
+    // first of all: zero and span cannot remove it, and a curve always leaks into the fitted
+    // zero and span). Hysteresis counts with half its width: the worse direction lies that far
+    // beyond the mean the fit follows.
+    std::vector<AdviceEffect> effects;
+    double worstErrorFractionOfLimit = 0.0;   // largest |error| / permissible error
+    bool adjustmentNeeded = false;            // worst error above adjustAboveFractionOfLimit
+    LikelyCause cause = LikelyCause::None;    // the largest significant effect
+    std::vector<LikelyCause> alsoSignificant; // the other significant effects, in rank order
     std::string explanation;                  // plain words for the technician
 };
 
-// Effects at or above this fraction of the permissible error are called significant.
-inline constexpr double kSignificantFractionOfLimit = 0.2;
-
 Advice adviseAdjustment(const AdviceInput& input);
+
+// Short name of an effect: "zero offset", "span error", ...
+std::string_view effectName(LikelyCause cause);
 
 // Plain-words explanation of one cause.
 std::string describeCause(LikelyCause cause, InstrumentKind kind);

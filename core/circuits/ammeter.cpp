@@ -47,6 +47,8 @@ AyrtonShunt ayrtonShunt(const Movement& movement, std::span<const double> amps_r
     const double loop_V = movement.amps_fs * (movement.ohms_coil + shunt.total_ohm);
     for (std::size_t k = 0; k < shunt.amps_ranges.size(); ++k) {
         shunt.taps_ohm.push_back(k == 0 ? shunt.total_ohm : loop_V / shunt.amps_ranges[k]);
+        shunt.burden_V.push_back(movement.amps_fs *
+                                 (movement.ohms_coil + shunt.total_ohm - shunt.taps_ohm.back()));
     }
     // Sections from the common terminal outwards: highest range's tap first.
     double previous_ohm = 0.0;

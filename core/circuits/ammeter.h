@@ -9,7 +9,8 @@
 namespace mw {
 
 // Shunt for one range: R_sh = I_fs·R_m / (I - I_fs). Throws std::domain_error when the range is
-// not above I_fs.
+// not above I_fs. With a swamping resistor in series with the coil, pass the movement with
+// R_m + R_sw. The burden at full scale is then movement.fullScaleDrop_V().
 double shunt_ohm(const Movement& movement, double amps_range);
 
 // Ayrton shunt: one resistor string of n sections between the common terminal and the end of the
@@ -28,6 +29,9 @@ struct AyrtonShunt {
     // one used alone on the highest range, the last one is added only on the lowest range.
     std::vector<double> sections_ohm;
     double total_ohm = 0.0;
+    // burden_V[k]: voltage across the terminals at full scale of amps_ranges[k], the movement
+    // branch's I_fs·(R_m + R_total − T_k) (the burden the circuit under test sees).
+    std::vector<double> burden_V;
 };
 
 // Ranges in any order (sorted ascending here). Throws std::domain_error for a range not above

@@ -158,4 +158,29 @@ SwampDesign designSwamp(const SwampRequest& request) {
     return design;
 }
 
+double spanDriftPer10K(const CoilCircuit& circuit, double celsius_ref) {
+    return spanError(circuit, celsius_ref + 10.0, celsius_ref);
+}
+
+std::optional<std::string> unswampedShuntCaution(const CoilCircuit& circuit, double classIndex,
+                                                 double celsius_ref) {
+    if (!circuit.shunt) {
+        return std::nullopt;
+    }
+    if (!(classIndex > 0.0) || !std::isfinite(classIndex)) {
+        throw std::domain_error("swamping check: the class index must be above 0");
+    }
+    const double drift = spanDriftPer10K(circuit, celsius_ref);
+    if (std::fabs(drift) * 100.0 <= classIndex) {
+        return std::nullopt;
+    }
+    return "The copper coil is not swamped: on a low-tempco shunt the span drifts by " +
+           formatEngineering(100.0 * drift, 3, Unit::Percent) +
+           " per 10 K (copper: +0.393 %/K, IEC 60028), more than the " +
+           formatEngineering(classIndex, 2, Unit::Percent) +
+           " per 10 K that class allows for temperature (IEC 60051-1, from memory). Add a "
+           "low-tempco swamping resistor in series with the coil and resize the shunt (calc "
+           "temperature --target).";
+}
+
 } // namespace mw

@@ -3,6 +3,7 @@
 #pragma once
 
 #include <optional>
+#include <string>
 
 namespace mw {
 
@@ -35,6 +36,17 @@ struct CoilCircuit {
 // Relative change of the indication at `celsius` against `celsius_ref` for the same applied
 // voltage (no shunt) or current (with a shunt): I_m(t) / I_m(ref) - 1. Negative: reads low.
 double spanError(const CoilCircuit& circuit, double celsius, double celsius_ref);
+
+// Span drift over 10 K above `celsius_ref`, as a fraction: spanError(circuit, ref + 10, ref).
+double spanDriftPer10K(const CoilCircuit& circuit, double celsius_ref = 23.0);
+
+// For an ammeter (a circuit with a shunt): the caution that its copper coil sits on a
+// low-tempco (manganin) shunt without enough swamping, so the span drifts with almost the
+// whole 0.393 %/K of copper. Given when the drift over 10 K exceeds `classIndex` percent, the
+// limit of the variation due to temperature of IEC 60051-1 (100 % of the class index per
+// 10 K, from memory). None for a voltmeter or a swamped ammeter.
+std::optional<std::string> unswampedShuntCaution(const CoilCircuit& circuit, double classIndex,
+                                                 double celsius_ref = 23.0);
 
 // Temperature coefficient of coil + swamping resistor in series:
 // (α_Cu·R_coil + α_sw·R_sw) / (R_coil + R_sw), both resistances at 20 °C.

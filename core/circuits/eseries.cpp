@@ -166,7 +166,7 @@ double nearestStandard(double ohms, ESeries series) {
     return std::log(ohms / below) < std::log(above / ohms) ? below : above;
 }
 
-ResistorChoice chooseResistor(double ohms, ESeries series) {
+ResistorChoice chooseResistor(double ohms, ESeries series, double smallestTrimmer_ohm) {
     ResistorChoice choice;
     choice.ohms_wanted = ohms;
     choice.ohms_standard = nearestNotAbove(ohms, series);
@@ -180,24 +180,71 @@ ResistorChoice chooseResistor(double ohms, ESeries series) {
             break;
         }
     }
+    if (choice.ohms_trimmer < smallestTrimmer_ohm) {
+        choice.trimPractical = false;
+        choice.trimNote =
+            "no trim suggested: covering " +
+            formatEngineering(choice.ohms_trim_range, 3, Unit::Ohm) +
+            " (the trim with the part's " +
+            formatEngineering(100.0 * eseriesTolerance(series), 2, Unit::Percent) +
+            " tolerance) would take a trimmer below the smallest practical one (about " +
+            formatEngineering(smallestTrimmer_ohm, 2, Unit::Ohm) +
+            "); select the part by measurement, or trim elsewhere in the circuit";
+    }
     return choice;
 }
 
-Dissipation dissipation(double ohms, double amps_fs, double watts_rating, double derating) {
+Dissipation dissipation(double ohms, double amps_fs, double watts_rating, double derating,
+                        double volts_rating) {
     if (!std::isfinite(ohms) || ohms < 0.0 || !std::isfinite(amps_fs)) {
         throw std::domain_error("dissipation: resistance must be >= 0 Ω and current finite");
     }
-    if (!(watts_rating > 0.0) || !(derating > 0.0 && derating <= 1.0)) {
-        throw std::domain_error("dissipation: rating must be > 0 W and derating in (0, 1]");
+    if (!(watts_rating > 0.0) || !(derating > 0.0 && derating <= 1.0) || !(volts_rating > 0.0)) {
+        throw std::domain_error("dissipation: ratings must be > 0 W and > 0 V and the derating "
+                                "in (0, 1]");
     }
     Dissipation d;
     d.watts_fs = amps_fs * amps_fs * ohms;
     const double amps_over = kOverrangeFactor * amps_fs;
     d.watts_overrange = amps_over * amps_over * ohms;
+    d.volts_fs = std::fabs(amps_fs) * ohms;
     d.volts_overrange = std::fabs(amps_over) * ohms;
     d.watts_rating = watts_rating;
-    d.exceedsRating = d.watts_overrange > watts_rating * derating;
+    d.volts_rating = volts_rating;
+    d.aboveDeratedRating = d.watts_overrange > watts_rating * derating;
+    d.overRating = d.watts_overrange > watts_rating;
+    d.overVoltageRating = d.volts_overrange > volts_rating;
     return d;
+}
+
+std::optional<std::string> ratingCaution(const Dissipation& heat, std::string_view part) {
+    const std::string name(part);
+    const auto w = [](double watts) {
+        return formatEngineering(watts, 3, Unit::Watt);
+    };
+    const auto v = [](double volts) {
+        return formatEngineering(volts, 3, Unit::Volt);
+    };
+    std::string text;
+    if (heat.overRating) {
+        text = "OVER the power rating: " + name + " dissipates " + w(heat.watts_fs) +
+               " at full scale and " + w(heat.watts_overrange) + " at 120 % of range, against a " +
+               w(heat.watts_rating) + " rating; choose a part rated at least " +
+               w(heat.watts_overrange / kTypicalDerating) + ".";
+    } else if (heat.aboveDeratedRating) {
+        text = "Above the derated power: " + name + " dissipates " + w(heat.watts_overrange) +
+               " at 120 % of range, more than half of its " + w(heat.watts_rating) +
+               " rating (common practice: run at half the rating).";
+    }
+    if (heat.overVoltageRating) {
+        text += std::string(text.empty() ? "" : " ") + "OVER the voltage rating: " + name +
+                " has " + v(heat.volts_overrange) + " across it at 120 % of range (" +
+                v(heat.volts_fs) + " at full scale), against a working voltage of " +
+                v(heat.volts_rating) +
+                "; build it from resistors in series, each within its "
+                "rating.";
+    }
+    return text.empty() ? std::nullopt : std::optional<std::string>(text);
 }
 
 } // namespace mw

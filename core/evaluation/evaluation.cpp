@@ -1,31 +1,22 @@
-// Evaluation of the readings of one range: grouping into points, errors, budgets, decisions,
-// the statement and the advice.
+// Evaluation of the readings of one range: validation, the points, the overall outcome, what
+// the budget leaves out, cautions, the statement and the advice.
 #include "core/evaluation/evaluation.h"
 
+#include "core/circuits/hazard.h"
+#include "core/evaluation/point_evaluation.h"
 #include "core/evaluation/statement.h"
 #include "core/plan/test_plan.h"
 
 #include <algorithm>
 #include <cmath>
-#include <numeric>
-#include <stdexcept>
 #include <string>
+#include <utility>
 
 namespace mw {
 namespace {
 
-struct PointGroup {
-    std::vector<double> applied;
-    std::vector<double> errorsUp;
-    std::vector<double> errorsDown;
-};
-
-bool sameValue(double a, double b) {
-    return std::fabs(a - b) <= 1e-9 * std::max({1.0, std::fabs(a), std::fabs(b)});
-}
-
-double mean(const std::vector<double>& values) {
-    return std::accumulate(values.begin(), values.end(), 0.0) / static_cast<double>(values.size());
+std::string readingPrefix(std::optional<std::size_t> readingNumber) {
+    return readingNumber ? "reading " + std::to_string(*readingNumber) + " " : std::string();
 }
 
 void requireOnScale(const EvaluationInput& input, std::size_t index, double applied) {
@@ -39,213 +30,138 @@ void requireOnScale(const EvaluationInput& input, std::size_t index, double appl
     const auto show = [&input](double value) {
         return formatEngineering(value, 4, input.unit);
     };
-    throw std::invalid_argument(
-        "evaluation: reading " + std::to_string(index + 1) + " has an applied value of " +
-        show(applied) + ", outside the range's scale " + show(lower) + " … " + show(upper) +
-        " (by more than " + formatEngineering(100.0 * kScaleEndAllowance, 2, Unit::Percent) +
-        " of the span)");
+    throw EvaluationError(
+        "applied", index + 1,
+        "has an applied value of " + show(applied) + ", outside the range's scale " + show(lower) +
+            " … " + show(upper) + " (by more than " +
+            formatEngineering(100.0 * kScaleEndAllowance, 2, Unit::Percent) + " of the span)");
 }
 
-void validateReadings(const EvaluationInput& input) {
-    if (input.readings.empty()) {
-        throw std::invalid_argument("evaluation: there are no readings");
+// Runs `step`, turning the std::invalid_argument of a lower layer into an EvaluationError
+// naming `field`.
+template <typename Step>
+auto naming(const std::string& field, Step step) {
+    try {
+        return step();
+    } catch (const EvaluationError&) {
+        throw;
+    } catch (const std::invalid_argument& error) {
+        throw EvaluationError(field, std::nullopt, error.what());
     }
-    fiducialValue(input.range); // refuses limits that are not finite or not in order
+}
+
+void validateInput(const EvaluationInput& input) {
+    if (input.readings.empty()) {
+        throw EvaluationError("readings", std::nullopt, "there are no readings");
+    }
+    naming("range", [&input] { return fiducialValue(input.range); });
     for (std::size_t i = 0; i < input.readings.size(); ++i) {
         const EvaluationReading& reading = input.readings[i];
-        if (!std::isfinite(reading.applied) || !std::isfinite(reading.indicated)) {
-            throw std::invalid_argument("evaluation: reading " + std::to_string(i + 1) +
-                                        " has a value that is not a finite number");
+        if (!std::isfinite(reading.applied)) {
+            throw EvaluationError("applied", i + 1,
+                                  "has an applied value that is not a finite "
+                                  "number");
+        }
+        if (!std::isfinite(reading.indicated)) {
+            throw EvaluationError("indicated", i + 1,
+                                  "has an indicated value that is not a "
+                                  "finite number");
+        }
+        if (reading.repeat < 0) {
+            throw EvaluationError("repeat", i + 1, "has a negative repeat number");
         }
         requireOnScale(input, i, reading.applied);
     }
     if (!(input.readabilityFraction > 0.0 && input.readabilityFraction <= 1.0)) {
-        throw std::invalid_argument("evaluation: readability must be a fraction of a division "
-                                    "in (0, 1]");
+        throw EvaluationError("readability", std::nullopt,
+                              "readability must be a fraction of a division in (0, 1]");
     }
     if (input.divisions < 0) {
-        throw std::invalid_argument("evaluation: scale divisions must not be negative");
+        throw EvaluationError("divisions", std::nullopt, "scale divisions must not be negative");
+    }
+    if (!(input.probability > 0.0 && input.probability < 1.0)) {
+        throw EvaluationError("probability", std::nullopt,
+                              "the coverage probability must lie between 0 and 1");
+    }
+    if (hasGuardBand(input.decision.rule) &&
+        !(input.decision.guardFactor >= 0.0 && std::isfinite(input.decision.guardFactor))) {
+        throw EvaluationError("decision", std::nullopt,
+                              "the guard-band factor r must be a number >= 0, got " +
+                                  formatPlain(input.decision.guardFactor));
+    }
+    if (input.referenceRangeValue &&
+        !(*input.referenceRangeValue > 0.0 && std::isfinite(*input.referenceRangeValue))) {
+        throw EvaluationError("reference", std::nullopt,
+                              "the reference standard's range must be a value above zero");
     }
 }
 
-// Readings with the same point index (or, without one, the same applied value) form a point.
-std::vector<PointGroup> groupReadings(const std::vector<EvaluationReading>& readings) {
-    std::vector<PointGroup> groups;
-    std::vector<std::pair<int, double>> keys;
-    for (const EvaluationReading& reading : readings) {
-        auto found = std::find_if(keys.begin(), keys.end(), [&reading](const auto& key) {
-            return reading.point >= 0 ? key.first == reading.point
-                                      : key.first < 0 && sameValue(key.second, reading.applied);
-        });
-        if (found == keys.end()) {
-            keys.emplace_back(reading.point, reading.applied);
-            groups.emplace_back();
-            found = keys.end() - 1;
-        }
-        PointGroup& group = groups[static_cast<std::size_t>(found - keys.begin())];
-        group.applied.push_back(reading.applied);
-        const double error = reading.indicated - reading.applied;
-        (reading.direction == Direction::Up ? group.errorsUp : group.errorsDown).push_back(error);
-    }
-    std::sort(groups.begin(), groups.end(), [](const PointGroup& a, const PointGroup& b) {
-        return mean(a.applied) < mean(b.applied);
-    });
-    return groups;
+double referenceRange(const EvaluationInput& input) {
+    return input.referenceRangeValue.value_or(
+        std::max(std::fabs(input.range.lower), std::fabs(input.range.upper)));
 }
 
-// Type A from repeats, pooling the scatter of both directions (JCGM 100:2008 H.3.6 pooled
-// variance): u = s_p / √n of the chosen direction's mean, ν = Σ (n_i − 1).
-void addTypeA(const PointGroup& group, std::size_t chosenCount, PointResult& point) {
-    double sumSquares = 0.0;
-    double dof = 0.0;
-    for (const auto* errors : {&group.errorsUp, &group.errorsDown}) {
-        if (errors->size() < 2) {
-            continue;
-        }
-        const double s = sampleStandardDeviation(*errors);
-        sumSquares += s * s * static_cast<double>(errors->size() - 1);
-        dof += static_cast<double>(errors->size() - 1);
+std::vector<OmittedComponent> omittedComponents(const EvaluationInput& input) {
+    std::vector<OmittedComponent> omitted;
+    if (!input.reference && !input.referenceComponents) {
+        omitted.push_back({"reference standard",
+                           "no uncertainty of the reference standard was given, so U understates "
+                           "the uncertainty of the calibration and no TUR is stated"});
     }
-    if (dof == 0.0) {
-        return;
+    if (input.divisions == 0) {
+        omitted.push_back({"readability of the scale",
+                           "no number of scale divisions was given, so reading the analog scale "
+                           "adds nothing to U"});
     }
-    const double pooled = std::sqrt(sumSquares / dof);
-    point.repeatability = pooled;
-    UncertaintyComponent typeA;
-    typeA.name = "repeatability (Type A)";
-    typeA.value = pooled / std::sqrt(static_cast<double>(chosenCount));
-    typeA.distribution = Distribution::Normal;
-    typeA.coverageK = 1.0;
-    typeA.dof = dof;
-    typeA.typeA = true;
-    point.components.push_back(typeA);
+    return omitted;
 }
 
-std::vector<UncertaintyComponent> typeBComponents(const EvaluationInput& input, double applied) {
-    std::vector<UncertaintyComponent> components;
-    if (input.referenceComponents) {
-        components = input.referenceComponents(applied);
-    } else if (input.reference) {
-        const double rangeValue = input.referenceRangeValue.value_or(
-            std::max(std::fabs(input.range.lower), std::fabs(input.range.upper)));
-        components.push_back(referenceComponent(*input.reference, applied, rangeValue));
-    }
-    if (input.referenceResolution > 0.0) {
-        components.push_back(
-            resolutionComponent("resolution of the reference", input.referenceResolution));
-    }
-    if (input.divisions > 0) {
-        components.push_back(readabilityComponent(divisionValue(input.range, input.divisions),
-                                                  input.readabilityFraction));
-    }
-    if (input.temperature) {
-        const TemperatureInfluence& t = *input.temperature;
-        const double shift = t.coil ? spanError(*t.coil, t.roomCelsius, t.referenceCelsius)
-                                    : t.coefficientPerKelvin * (t.roomCelsius - t.referenceCelsius);
-        components.push_back(temperatureComponent(applied, shift));
-    }
-    components.insert(components.end(), input.extraComponents.begin(), input.extraComponents.end());
-    return components;
+VoltageKind voltageKindOf(InstrumentKind kind) {
+    // A multi-range meter may be on an AC range: the stricter AC limits are checked.
+    return kind == InstrumentKind::DcVoltmeter || kind == InstrumentKind::DcAmmeter
+               ? VoltageKind::Dc
+               : VoltageKind::AcRms;
 }
 
-PointResult evaluatePoint(const EvaluationInput& input, const PointGroup& group, double fiducial,
-                          double limit) {
-    PointResult point;
-    point.applied = mean(group.applied);
-    point.readingCount = static_cast<int>(group.applied.size());
-    if (!group.errorsUp.empty()) {
-        point.errorUp = mean(group.errorsUp);
+// The largest voltage the range and its readings put on the terminals, against IEC 61010-1.
+std::optional<std::string> hazardOf(const EvaluationInput& input) {
+    if (input.unit != Unit::Volt) {
+        return std::nullopt;
     }
-    if (!group.errorsDown.empty()) {
-        point.errorDown = mean(group.errorsDown);
+    double largest = std::max(std::fabs(input.range.lower), std::fabs(input.range.upper));
+    for (const EvaluationReading& reading : input.readings) {
+        largest = std::max({largest, std::fabs(reading.applied), std::fabs(reading.indicated)});
     }
-    if (point.errorUp && point.errorDown) {
-        point.hysteresis = *point.errorDown - *point.errorUp;
-    }
-    // The class applies to every reading, up-scale and down-scale (common practice), so the
-    // point is judged by the direction with the larger error.
-    const bool downWorse = point.errorDown && (!point.errorUp || std::fabs(*point.errorDown) >
-                                                                     std::fabs(*point.errorUp));
-    point.error = downWorse ? *point.errorDown : *point.errorUp;
-    point.indicated = point.applied + point.error;
-    if (point.applied != 0.0) {
-        point.errorPercentOfReading = point.error / point.applied * 100.0;
-    }
-    point.errorPercentOfFiducial = point.error / fiducial * 100.0;
-    point.permissibleError = limit;
-
-    point.components = typeBComponents(input, point.applied);
-    addTypeA(group, downWorse ? group.errorsDown.size() : group.errorsUp.size(), point);
-    point.budget = evaluateBudget(point.components, input.probability);
-
-    const ToleranceInterval tolerance{-limit, limit};
-    // The rounded-up U rather than the unrounded one: it is the larger (never narrows the guard
-    // band) and it is the number printed beside the decision (see PointResult).
-    const double expanded = point.budget.expandedRounded;
-    point.tur = testUncertaintyRatio(tolerance.lower, tolerance.upper, expanded);
-    point.turBelowMinimum = point.tur < kMinimumTur;
-    point.decision = decide(point.error, expanded, tolerance, input.decision);
-    point.probabilityOfFalseAccept =
-        probabilityOfFalseAccept(point.error, point.budget.combined, tolerance);
-    return point;
+    return hazardCaution(largest, voltageKindOf(input.kind));
 }
 
-void addAdvice(const EvaluationInput& input, EvaluationResult& result) {
-    std::vector<PointErrors> errors;
-    for (const PointResult& point : result.points) {
-        errors.push_back({point.applied, point.errorUp, point.errorDown});
+void addCautions(const EvaluationInput& input, EvaluationResult& result) {
+    if (result.hazardCaution) {
+        result.cautions.push_back(*result.hazardCaution);
     }
-    if (errors.size() < 2) {
-        return;
+    for (const OmittedComponent& omitted : result.omittedComponents) {
+        result.cautions.push_back("Left out of the uncertainty budget: " + omitted.name + " (" +
+                                  omitted.reason + ").");
     }
-    AdviceInput adviceInput;
-    adviceInput.kind = input.kind;
-    adviceInput.unit = input.unit;
-    adviceInput.upperLimit = std::max(std::fabs(input.range.lower), std::fabs(input.range.upper));
-    adviceInput.permissibleError = result.permissibleError;
-    adviceInput.points = errors;
-    if (input.predictedError) {
-        std::vector<double> predicted;
-        for (const PointResult& point : result.points) {
-            predicted.push_back(input.predictedError(point.applied));
-        }
-        adviceInput.predictedErrors = predicted;
+    const auto below = std::count_if(result.points.begin(), result.points.end(),
+                                     [](const PointResult& p) { return p.turBelowMinimum; });
+    if (input.decision.rule == DecisionRule::SimpleAcceptance && below > 0) {
+        result.cautions.push_back(
+            "Simple acceptance with a TUR below 4:1 at " + std::to_string(below) +
+            (below == 1 ? " point" : " points") +
+            ": the uncertainty is large against the limit, so an error near the limit may be "
+            "accepted wrongly with up to 50 % probability (ILAC G8:09/2019 4.2.1); consider a "
+            "guard band (ILAC G8:09/2019 4.2.2 or 4.2.3) or a better reference.");
     }
-    result.advice = adviseAdjustment(adviceInput);
-    if (input.resistor) {
-        const RangeResistor& r = input.resistor.value();
-        const double span = result.advice->fit.spanFactor;
-        result.correctedResistorOhms =
-            r.isShunt ? correctedShuntOhms(r.presentOhms, r.movementOhms, span)
-                      : correctedMultiplierOhms(r.presentOhms, r.movementOhms, span);
-        result.correctedChoice = chooseResistor(*result.correctedResistorOhms, r.series);
-        if (r.computedOhms) {
-            result.resistorDeviation =
-                compareResistor(*r.computedOhms, r.presentOhms, r.tolerancePercent);
-        }
+    if (result.referenceRangeAssumed) {
+        result.cautions.push_back(
+            "The reference's \"% of range\" term was taken on " +
+            formatEngineering(*result.referenceRangeValue, 4, input.unit) +
+            ", the meter range's limit; the standard's own range may differ.");
     }
 }
 
-} // namespace
-
-EvaluationResult evaluateRange(const EvaluationInput& input) {
-    validateReadings(input);
-    EvaluationResult result;
-    result.fiducialValue = fiducialValue(input.range);
-    result.permissibleError = permissibleError(input.classIndex, result.fiducialValue);
-
-    double worstRatio = -1.0;
-    for (const PointGroup& group : groupReadings(input.readings)) {
-        result.points.push_back(
-            evaluatePoint(input, group, result.fiducialValue, result.permissibleError));
-        const PointResult& point = result.points.back();
-        result.overall = worseOf(result.overall, point.decision);
-        const double ratio = std::fabs(point.error) / point.permissibleError;
-        if (ratio > worstRatio) {
-            worstRatio = ratio;
-            result.worstPoint = result.points.size() - 1;
-        }
-    }
+StatementFacts statementFacts(const EvaluationInput& input, const EvaluationResult& result) {
     StatementFacts facts;
     facts.phase = input.phase;
     facts.pointCount = result.points.size();
@@ -257,8 +173,114 @@ EvaluationResult evaluateRange(const EvaluationInput& input) {
     facts.permissibleError = result.permissibleError;
     facts.decision = input.decision;
     facts.overall = result.overall;
-    result.statement = conformityStatement(facts);
-    addAdvice(input, result);
+    facts.probability = input.probability;
+    for (const PointResult& point : result.points) {
+        if (point.decision != Outcome::Pass) {
+            facts.findings.push_back(
+                {point.applied, point.error, point.budget.expandedRounded, point.decision});
+        }
+    }
+    if (input.reference) {
+        facts.referenceSpec = describeReferenceSpec(*input.reference, input.unit);
+    }
+    facts.referenceIdentity = input.referenceIdentity;
+    for (const OmittedComponent& omitted : result.omittedComponents) {
+        facts.omittedComponents.push_back(omitted.name);
+    }
+    return facts;
+}
+
+void addAdvice(const EvaluationInput& input, EvaluationResult& result) {
+    std::vector<PointErrors> errors;
+    double largestU = 0.0;
+    for (const PointResult& point : result.points) {
+        errors.push_back({point.applied, point.errorUp, point.errorDown});
+        largestU = std::max(largestU, point.budget.expandedRounded);
+    }
+    if (errors.size() < 2) {
+        return;
+    }
+    AdviceInput adviceInput;
+    adviceInput.kind = input.kind;
+    adviceInput.unit = input.unit;
+    adviceInput.upperLimit = std::max(std::fabs(input.range.lower), std::fabs(input.range.upper));
+    adviceInput.permissibleError = result.permissibleError;
+    adviceInput.expandedUncertainty = largestU;
+    adviceInput.points = errors;
+    if (input.predictedError) {
+        std::vector<double> predicted;
+        for (const PointResult& point : result.points) {
+            predicted.push_back(input.predictedError(point.applied));
+        }
+        adviceInput.predictedErrors = predicted;
+    }
+    result.advice = adviseAdjustment(adviceInput);
+    const Advice& advice = *result.advice;
+    const bool spanMatters = advice.cause == LikelyCause::Span ||
+                             std::find(advice.alsoSignificant.begin(), advice.alsoSignificant.end(),
+                                       LikelyCause::Span) != advice.alsoSignificant.end();
+    if (input.resistor && spanMatters) {
+        const RangeResistor& r = input.resistor.value();
+        const double span = advice.fit.spanFactor;
+        result.correctedResistorOhms =
+            r.isShunt ? correctedShuntOhms(r.presentOhms, r.movementOhms, span)
+                      : correctedMultiplierOhms(r.presentOhms, r.movementOhms, span);
+        result.correctedChoice = chooseResistor(*result.correctedResistorOhms, r.series);
+    }
+    if (input.resistor && input.resistor->computedOhms) {
+        const RangeResistor& r = input.resistor.value();
+        result.resistorDeviation =
+            compareResistor(*r.computedOhms, r.presentOhms, r.tolerancePercent);
+    }
+}
+
+} // namespace
+
+EvaluationError::EvaluationError(std::string field, std::optional<std::size_t> readingNumber,
+                                 const std::string& detail,
+                                 std::optional<std::size_t> conflictingReadingNumber)
+    : std::invalid_argument("evaluation: " + readingPrefix(readingNumber) + detail)
+    , field_(std::move(field))
+    , readingNumber_(readingNumber)
+    , conflictingReadingNumber_(conflictingReadingNumber)
+    , detail_(detail) {}
+
+EvaluationResult evaluateRange(const EvaluationInput& input) {
+    validateInput(input);
+    EvaluationResult result;
+    result.fiducialValue = fiducialValue(input.range);
+    const ExactDecimal limit = naming(
+        "class index", [&input] { return exactPermissibleError(input.classIndex, input.range); });
+    result.permissibleError = limit.toDouble();
+    if (input.reference) {
+        result.referenceRangeValue = referenceRange(input);
+        result.referenceRangeAssumed =
+            !input.referenceRangeValue && input.reference->fractionOfRange > 0.0;
+    }
+    const double rangeForReference = referenceRange(input);
+
+    std::optional<ExactMean> worst;
+    for (const evaluation::PointGroup& group :
+         evaluation::groupReadings(input.readings, input.unit)) {
+        const evaluation::EvaluatedPoint point = naming("component", [&] {
+            return evaluation::evaluatePoint(input, group, result.fiducialValue, limit,
+                                             rangeForReference);
+        });
+        result.points.push_back(point.result);
+        result.overall = worseOf(result.overall, point.result.decision);
+        if (!worst || point.error.compareMagnitude(*worst) > 0) {
+            worst = point.error;
+            result.worstPoint = result.points.size() - 1;
+        }
+    }
+    result.omittedComponents = omittedComponents(input);
+    result.hazardCaution = hazardOf(input);
+    addCautions(input, result);
+    naming("readings", [&] {
+        addAdvice(input, result);
+        return 0;
+    });
+    result.statement = conformityStatement(statementFacts(input, result));
     return result;
 }
 

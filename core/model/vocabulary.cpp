@@ -53,9 +53,10 @@ constexpr Words<InstrumentStatus, 3> kStatuses{{
     {InstrumentStatus::OutOfService, "out-of-service"},
     {InstrumentStatus::Retired, "retired"},
 }};
-constexpr Words<DecisionRule, 2> kRules{{
+constexpr Words<DecisionRule, 3> kRules{{
     {DecisionRule::SimpleAcceptance, "simple"},
     {DecisionRule::GuardedAcceptance, "guarded"},
+    {DecisionRule::GuardedBinary, "guarded-binary"},
 }};
 constexpr Words<Outcome, 4> kOutcomes{{
     {Outcome::Pass, "pass"},
@@ -280,9 +281,17 @@ std::string_view displayName(Outcome value) {
     return "?";
 }
 
+// The names ILAC G8:09/2019 gives its rules in 4.2.1 to 4.2.3.
 std::string_view displayName(DecisionRule value) {
-    return value == DecisionRule::SimpleAcceptance ? "Simple acceptance (ILAC G8 4.2.1)"
-                                                   : "Guarded acceptance (ILAC G8 4.2.3)";
+    switch (value) {
+    case DecisionRule::SimpleAcceptance:
+        return "Binary statement for simple acceptance (ILAC G8:09/2019 4.2.1)";
+    case DecisionRule::GuardedBinary:
+        return "Binary statement with guard band (ILAC G8:09/2019 4.2.2)";
+    case DecisionRule::GuardedAcceptance:
+        return "Non-binary statement with guard band (ILAC G8:09/2019 4.2.3)";
+    }
+    return "?";
 }
 
 std::string_view displayName(InstrumentStatus value) {

@@ -45,9 +45,11 @@ enum class Role { Technician, Reviewer, Administrator };
 
 enum class InstrumentStatus { InService, OutOfService, Retired };
 
+// The rules of ILAC G8:09/2019 4.2. Enumerator values are stable; new rules go at the end.
 enum class DecisionRule {
-    SimpleAcceptance,  // ILAC G8:09/2019 4.2.1, guard band w = 0
-    GuardedAcceptance, // ILAC G8:09/2019 4.2.3, guard band w = r * U
+    SimpleAcceptance,  // 4.2.1 binary statement, simple acceptance (w = 0): "simple"
+    GuardedAcceptance, // 4.2.3 non-binary statement with guard band w = r * U: "guarded"
+    GuardedBinary,     // 4.2.2 binary statement with guard band w = r * U: "guarded-binary"
 };
 
 // ILAC G8:09/2019 4.2.3 outcomes; simple acceptance only ever yields Pass or Fail.

@@ -5,6 +5,7 @@
 #include <cmath>
 #include <numeric>
 #include <stdexcept>
+#include <string>
 
 namespace mw {
 namespace {
@@ -83,7 +84,11 @@ double roundUpToSignificant(double value, int digits) {
     const double scaled = magnitude * scale;
     const double nearest = std::round(scaled);
     const double up = std::fabs(scaled - nearest) <= 1e-9 * scaled ? nearest : std::ceil(scaled);
-    return std::copysign(up / scale, value);
+    // The double nearest the rounded decimal, so that its shortest decimal is the digits shown
+    // (up / scale can land one binary step off when the scale is not exact).
+    const ExactDecimal rounded =
+        ExactDecimal::fromDouble(up / scale).roundedToExponent(exponent - digits + 1);
+    return std::copysign(rounded.toDouble(), value);
 }
 
 BudgetResult evaluateBudget(const std::vector<UncertaintyComponent>& components,
@@ -178,6 +183,56 @@ double testUncertaintyRatio(double toleranceLower, double toleranceUpper, double
         return kInfiniteDof;
     }
     return (toleranceUpper - toleranceLower) / (2.0 * expanded);
+}
+
+bool turBelowMinimum(const ExactDecimal& toleranceSpan, const ExactDecimal& expanded) {
+    return toleranceSpan < ExactDecimal::fromInteger(2 * static_cast<int>(kMinimumTur)) * expanded;
+}
+
+double turRoundedDown(const ExactDecimal& toleranceSpan, const ExactDecimal& expanded, int digits) {
+    if (!(toleranceSpan > ExactDecimal()) || expanded.isNegative()) {
+        throw std::invalid_argument("TUR: the tolerance span must be > 0 and U >= 0");
+    }
+    if (expanded.isZero()) {
+        return kInfiniteDof;
+    }
+    const ExactDecimal twiceU = ExactDecimal::fromInteger(2) * expanded;
+    // A first guess from binary arithmetic, then exact steps of one unit in the last digit
+    // until guess · 2U ≤ span < (guess + step) · 2U.
+    ExactDecimal guess = ExactDecimal::fromDouble(toleranceSpan.toDouble() / twiceU.toDouble())
+                             .roundedDownToSignificant(digits);
+    const auto step = [digits](const ExactDecimal& value) {
+        return ExactDecimal::fromInteger(1).timesPowerOfTen(value.leadingExponent() - digits + 1);
+    };
+    while (guess * twiceU > toleranceSpan) {
+        guess = guess - step(guess);
+    }
+    while ((guess + step(guess)) * twiceU <= toleranceSpan) {
+        guess = guess + step(guess);
+    }
+    return guess.toDouble();
+}
+
+std::string formatTur(double tur) {
+    if (!std::isfinite(tur)) {
+        return "inf:1";
+    }
+    const ExactDecimal value = ExactDecimal::fromDouble(tur);
+    if (value.isZero()) {
+        return "0:1";
+    }
+    // Two significant digits, trailing zero kept: 4 -> "4.0".
+    const int last = value.leadingExponent() - 1;
+    std::string text = value.roundedToExponent(last).toPlain();
+    if (last < 0) {
+        const std::size_t point = text.find('.');
+        const std::size_t have = point == std::string::npos ? 0 : text.size() - point - 1;
+        if (point == std::string::npos) {
+            text += '.';
+        }
+        text += std::string(static_cast<std::size_t>(-last) - have, '0');
+    }
+    return text + ":1";
 }
 
 } // namespace mw

@@ -4,6 +4,7 @@
 #pragma once
 
 #include "core/uncertainty/distributions.h"
+#include "core/units/decimal.h"
 
 #include <limits>
 #include <optional>
@@ -87,5 +88,18 @@ UncertaintyComponent temperatureComponent(double reading, double relativeShift);
 // divided by twice the expanded uncertainty of the calibration process.
 double testUncertaintyRatio(double toleranceLower, double toleranceUpper, double expanded);
 inline constexpr double kMinimumTur = 4.0; // Z540.3 5.3 fallback of 4:1
+
+// TUR < 4:1 decided exactly on the decimals: (T_U − T_L) < 2 · 4 · U, with U as reported.
+bool turBelowMinimum(const ExactDecimal& toleranceSpan, const ExactDecimal& expanded);
+
+// The TUR (T_U − T_L) / (2U) rounded DOWN to `digits` significant digits, exactly: a ratio of
+// 3.98 shows as 3.9, never as 4.0, so the printed ratio agrees with turBelowMinimum() and
+// rounding never flatters it. Infinity when U is 0. Throws std::invalid_argument for a span
+// that is not positive or a negative U.
+double turRoundedDown(const ExactDecimal& toleranceSpan, const ExactDecimal& expanded,
+                      int digits = 2);
+
+// A TUR as "6.2:1", "12:1", "4.0:1" (two significant digits as given), "inf:1" without U.
+std::string formatTur(double tur);
 
 } // namespace mw

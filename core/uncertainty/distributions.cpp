@@ -170,14 +170,15 @@ double studentTCoverage(double probability, double dof) {
     return solveDecreasing(excess, 0.0, hi);
 }
 
-double coverageFactor(double dof, double probability) {
+double tableDof(double dof) {
     if (std::isnan(dof) || dof <= 0.0) {
         throw std::domain_error("coverage factor: degrees of freedom must be positive");
     }
-    if (std::isinf(dof)) {
-        return studentTCoverage(probability, dof);
-    }
-    return studentTCoverage(probability, std::max(1.0, std::floor(dof)));
+    return std::isinf(dof) ? dof : std::max(1.0, std::floor(dof));
+}
+
+double coverageFactor(double dof, double probability) {
+    return studentTCoverage(probability, tableDof(dof));
 }
 
 } // namespace mw

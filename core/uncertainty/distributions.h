@@ -26,6 +26,11 @@ double studentTCdf(double t, double dof);
 // probability outside (0, 1) or dof ≤ 0.
 double studentTCoverage(double probability, double dof);
 
+// The degrees of freedom with which JCGM 100:2008 G.4.1 enters Table G.2: a finite ν truncated
+// to the next lower integer, ν < 1 taken as 1 (the table's first row), infinity kept. Throws
+// std::domain_error for ν ≤ 0 or NaN.
+double tableDof(double dof);
+
 // Coverage factor k = t_p(ν) as JCGM 100:2008 G.4.1 prescribes: a finite ν is truncated to the
 // next lower integer (ν < 1 is taken as 1) before the table is entered; infinity gives the
 // normal value.

@@ -102,7 +102,8 @@ public:
         : original_(original)
         , text_(decodeUtf8(original))
         , decimal_(options.decimalComma ? U',' : U'.')
-        , otherSeparator_(options.decimalComma ? U'.' : U',') {}
+        , otherSeparator_(options.decimalComma ? U'.' : U',')
+        , bareNumberPowerOfTen_(options.bareNumberPowerOfTen) {}
 
     Parsed run();
 
@@ -137,7 +138,9 @@ private:
     std::u32string text_;
     char32_t decimal_;
     char32_t otherSeparator_;
+    int bareNumberPowerOfTen_;
     std::size_t pos_ = 0;
+    int prefixPower_ = 0; // as typed
     bool negative_ = false;
     std::string integer_;
     std::string fraction_;
@@ -183,6 +186,7 @@ void Parser::readMantissa() {
         letterCode_ = true; // IEC 60062 "4k7": the letter is the decimal point and the prefix
         letterCodeIsOhm_ = at(pos_) == U'R';
         exponent_ = at(pos_) == U'R' ? 0 : *units::prefixPower(at(pos_));
+        prefixPower_ = static_cast<int>(exponent_);
         ++pos_;
         fraction_ = digitsFrom(pos_);
     }
@@ -237,6 +241,9 @@ void Parser::readUnit(Parsed& parsed) {
     parsed.unitPosition = start;
     if (token.empty()) {
         parsed.quantity.unit = letterCodeIsOhm_ ? Unit::Ohm : Unit::Dimensionless;
+        if (!letterCode_) {
+            exponent_ += bareNumberPowerOfTen_; // neither prefix nor unit: the context's
+        }
         return;
     }
     parsed.hasUnit = true;
@@ -255,6 +262,7 @@ void Parser::readUnit(Parsed& parsed) {
         }
         if (token.size() == 1) {
             exponent_ += *prefix; // "4.7k": a prefix alone, the unit follows from context
+            prefixPower_ = *prefix;
             parsed.quantity.unit = letterCodeIsOhm_ ? Unit::Ohm : Unit::Dimensionless;
             return;
         }
@@ -268,6 +276,7 @@ void Parser::readUnit(Parsed& parsed) {
                  "no SI prefix is used with " + toUtf8(token.substr(1)));
         }
         exponent_ += *prefix;
+        prefixPower_ = *prefix;
     }
     if (letterCodeIsOhm_ && unit->unit != Unit::Ohm) {
         fail(start, "unit " + spelled, "the R of the resistor code marks a resistance in ohms");
@@ -310,6 +319,7 @@ Parsed Parser::run() {
              parsed.hasUnit ? "nothing may follow the unit" : "nothing may follow the number");
     }
     parsed.quantity.value = convert(start);
+    parsed.quantity.prefixPower = prefixPower_;
     return parsed;
 }
 

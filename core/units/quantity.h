@@ -3,6 +3,7 @@
 #pragma once
 
 #include <cstddef>
+#include <optional>
 #include <stdexcept>
 #include <string>
 #include <string_view>
@@ -29,10 +30,15 @@ enum class Unit {
 struct Quantity {
     double value = 0.0;
     Unit unit = Unit::Dimensionless;
+    int prefixPower = 0; // the SI prefix as typed: -6 for "50uA" and "4u7", 0 without one
 };
 
 struct ParseOptions {
     bool decimalComma = false; // "4,7k" instead of "4.7k"
+    // A number typed with neither prefix nor unit is taken as this power of ten of the unit:
+    // -6 on a 50 µA range, where the scale shows "50" for 50 µA. The prefix is folded into the
+    // one decimal conversion, so "-50" is the double nearest -50e-6, like "-50 µA".
+    int bareNumberPowerOfTen = 0;
 };
 
 // A precise parse error: what was wrong, and the 0-based character position where it was found.
@@ -63,6 +69,14 @@ double parseValue(std::string_view text, Unit expected, const ParseOptions& opti
 // value rounded to the printed digits. Non-finite values print as "NaN", "inf", "-inf".
 // significantDigits is clamped to 1..17.
 std::string formatEngineering(double value, int significantDigits, Unit unit = Unit::Dimensionless);
+
+// The value rounded (exactly, half away from zero, on its shortest decimal) to a multiple of
+// 10^lastDigitExponent and written with the SI prefix 10^prefixPower (a multiple of 3 from -12
+// to 9; without one, the prefix of the rounded value, or of the last digit for a zero):
+// (0.1603, -3) -> "160 mV", (0, -3, -6) -> "0 µV" ... For numbers that must be shown to the
+// same last digit as their uncertainty (JCGM 100:2008 7.2.6), and columns in one prefix.
+std::string formatAtExponent(double value, int lastDigitExponent, Unit unit,
+                             std::optional<int> prefixPower = std::nullopt);
 
 // Dimensionless numbers in messages (probabilities, factors, degrees of freedom): six significant
 // digits without an SI prefix, so 1e-9 does not print as 0.000000 and 0.5 not as "500 m".

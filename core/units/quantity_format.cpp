@@ -1,6 +1,7 @@
 // Engineering-notation formatting and unit names: the one number format the app uses.
 #include "core/units/quantity.h"
 
+#include "core/units/decimal.h"
 #include "core/units/unit_spelling.h"
 
 #include <algorithm>
@@ -90,6 +91,32 @@ std::string formatEngineering(double value, int significantDigits, Unit unit) {
     const int engineering = 3 * static_cast<int>(std::floor(decimal.exponent / 3.0));
     const std::string mantissa = placePoint(decimal.digits, decimal.exponent - engineering + 1);
     return joinUnit(sign + mantissa, units::prefixSymbol(engineering), unit);
+}
+
+std::string formatAtExponent(double value, int lastDigitExponent, Unit unit,
+                             std::optional<int> prefixPower) {
+    if (!std::isfinite(value)) {
+        return formatEngineering(value, 3, unit);
+    }
+    const ExactDecimal rounded =
+        ExactDecimal::fromDouble(value).roundedToExponent(lastDigitExponent);
+    int prefix = 0;
+    if (takesPrefix(unit)) {
+        const int lead = rounded.isZero() ? lastDigitExponent : rounded.leadingExponent();
+        const int wanted = prefixPower.value_or(lead);
+        prefix = std::clamp(3 * static_cast<int>(std::floor(wanted / 3.0)), -12, 9);
+    }
+    std::string text = rounded.timesPowerOfTen(-prefix).toPlain();
+    const int decimals = std::max(0, prefix - lastDigitExponent);
+    if (decimals > 0) {
+        const std::size_t point = text.find('.');
+        const std::size_t have = point == std::string::npos ? 0 : text.size() - point - 1;
+        if (point == std::string::npos) {
+            text += '.';
+        }
+        text += std::string(static_cast<std::size_t>(decimals) - have, '0');
+    }
+    return joinUnit(text, units::prefixSymbol(prefix), unit);
 }
 
 std::string_view unitSymbol(Unit unit) {

@@ -150,3 +150,82 @@ TEST_CASE("bad input gives exit code 2 and one line saying what is wrong") {
     requireUsageError(args({"temperature", "--rm", "100", "--temp", "30 V"}), "temperature");
     requireUsageError(args({"shunt", "--bogus", "1"}), "bogus");
 }
+
+TEST_CASE("calc shunt: over the power rating is OVER, burden and an unswamped coil") {
+    // 1 mA, 100 Ω movement on 10 A: R_sh = 0.1 V / 9.999 A = 10.001 mΩ (Helfrick & Cooper
+    // §4 formula), I²R ≈ 1.0 W at full scale on a 0.25 W rating; burden I_fs·R_m = 100 mV,
+    // 120 mV at 120 % (Ohm's law). The unswamped copper coil drifts about -3.9 % per 10 K
+    // (IEC 60028 copper), more than class 1 allows (IEC 60051-1, from memory).
+    const QStringList design = args({"shunt", "--ifs", "1mA", "--rm", "100", "--range", "10A"});
+    const QJsonObject json = runJson(design);
+    CHECK(json.value(QStringLiteral("dissipation_w")).toDouble() == relative(0.9999, 1e-3));
+    CHECK(json.value(QStringLiteral("exceeds_rating")).toBool());
+    CHECK(json.value(QStringLiteral("burden_v")).toDouble() == relative(0.1, 1e-12));
+    CHECK(json.value(QStringLiteral("burden_overrange_v")).toDouble() == relative(0.12, 1e-12));
+    CHECK(json.value(QStringLiteral("span_drift_percent_per_10k")).toDouble() ==
+          relative(-3.8, 0.05));
+    const QString caution = json.value(QStringLiteral("caution")).toString();
+    CHECK(caution.contains(QStringLiteral("OVER the power rating")));
+    CHECK(caution.contains(QStringLiteral("not swamped")));
+    const mwtest::CliResult text = mwtest::calc::run(design);
+    CHECK(text.outText().contains(QStringLiteral("OVER the power rating")));
+    CHECK_FALSE(text.outText().contains(QStringLiteral("above half")));
+    // A 100 mA range swamped 1:19 with manganin: the drift falls to about a twentieth, within
+    // class 1 (swamping rule, check-values.md 8); the burden grows to 1 mA × 2 kΩ = 2 V; a
+    // 1 W part carries the 0.29 W at 120 % within half its rating.
+    const QJsonObject swamped = runJson(args({"shunt", "--ifs", "1mA", "--rm", "100", "--range",
+                                              "100mA", "--swamp", "1900", "--rating", "1W"}));
+    CHECK(swamped.value(QStringLiteral("caution")).isNull());
+    CHECK(swamped.value(QStringLiteral("burden_v")).toDouble() == relative(2.0, 1e-12));
+    CHECK(std::fabs(swamped.value(QStringLiteral("span_drift_percent_per_10k")).toDouble()) < 1.0);
+}
+
+TEST_CASE("calc ayrton gives the burden of each range") {
+    // Helfrick & Cooper Example 4-2 string: on 1 A the movement's own 50 mV (1 mA × 50 Ω).
+    const QJsonObject json =
+        runJson(args({"ayrton", "--ifs", "1mA", "--rm", "50", "--ranges", "1A,5A,10A"}));
+    const QJsonArray burdens = json.value(QStringLiteral("burden_v")).toArray();
+    REQUIRE(burdens.size() == 3);
+    CHECK(burdens.at(0).toDouble() == relative(0.05, 1e-9));
+}
+
+TEST_CASE("calc eseries suppresses a trim no practical trimmer can make") {
+    // Helfrick & Cooper Example 4-1 shunt 1.0101 Ω as E96 (IEC 60063 Table 2): 1.00 Ω and a
+    // trim of 10 mΩ, far below the smallest practical trimmer (about 10 Ω, common practice,
+    // from memory): no trim is suggested, and the reason is given.
+    const QJsonObject json = runJson(args({"eseries", "--value", "1.0101"}));
+    CHECK(json.value(QStringLiteral("nearest_not_above_ohm")).toDouble() == relative(1.0, 1e-12));
+    CHECK(json.value(QStringLiteral("trim_ohm")).isNull());
+    CHECK(json.value(QStringLiteral("trim_note"))
+              .toString()
+              .contains(QStringLiteral("smallest practical")));
+    const mwtest::CliResult text = mwtest::calc::run(args({"eseries", "--value", "1.0101"}));
+    CHECK(text.outText().contains(QStringLiteral("no trim suggested")));
+    CHECK_FALSE(text.outText().contains(QStringLiteral("trim 10")));
+}
+
+TEST_CASE("calc temperature prints its table aligned") {
+    const mwtest::CliResult text =
+        mwtest::calc::run(args({"temperature", "--rm", "100", "--temp", "30C", "--ref", "20C",
+                                "--target", "0.5%", "--from", "10C", "--to", "30C"}));
+    REQUIRE(text.exitCode == 0);
+    const QStringList lines = text.outText().trimmed().split(QLatin1Char('\n'));
+    REQUIRE(lines.size() == 4);
+    for (const QString& line : lines) {
+        INFO(line.toStdString());
+        CHECK(line.at(21) == QLatin1Char(' '));
+        CHECK(line.at(22) != QLatin1Char(' ')); // every value starts in the same column
+    }
+    // A copper coil on a manganin shunt without swamping: cautioned (IEC 60028 copper drift).
+    const QJsonObject shunted =
+        runJson(args({"temperature", "--rm", "100", "--temp", "30C", "--shunt", "1.0101"}));
+    CHECK(shunted.value(QStringLiteral("caution"))
+              .toString()
+              .contains(QStringLiteral("not swamped")));
+}
+
+TEST_CASE("the decimal comma is offered where values are read") {
+    // 4,7k with a decimal comma (common practice in much of Europe).
+    const QJsonObject json = runJson(args({"eseries", "--value", "4,7k", "--decimal-comma"}));
+    CHECK(json.value(QStringLiteral("wanted_ohm")).toDouble() == relative(4700.0, 1e-12));
+}

@@ -1,6 +1,7 @@
-// `meterwright calc coverage|evaluate` run as a separate process: JSON results against GUM
-// Table G.2 and hand-checked evaluations of invented readings, and bad input giving exit code 2
-// with one line on stderr naming the CSV line, column or option.
+// `meterwright calc evaluate` run as a separate process: hand-checked evaluations of invented
+// readings (JSON and text), exit codes, cautions, the budget's parts and options, and bad input
+// giving exit code 2 with one line on stderr naming the CSV line, column or option. The CSV
+// format itself is tested in readings_csv_cli_test.cpp.
 #include "support/approx.h"
 #include "support/cli_process.h"
 
@@ -32,15 +33,6 @@ QString fixture(const QTemporaryDir& dir, const char* name, const char* text) {
     return path;
 }
 
-// Writes `bytes` unchanged (CR and NUL included) to `name` in `dir` and returns the path.
-QString rawFixture(const QTemporaryDir& dir, const char* name, const QByteArray& bytes) {
-    const QString path = dir.filePath(QString::fromUtf8(name));
-    QFile file(path);
-    REQUIRE(file.open(QIODevice::WriteOnly));
-    REQUIRE(file.write(bytes) == bytes.size());
-    return path;
-}
-
 // Invented readings of a 0-10 V class 1.5 meter with zero +0.05 V, span 1.01 and hysteresis
 // 0.02 V (down 0.01 V above the mean, up 0.01 V below).
 const char* const kSynthetic = "applied,indicated,direction\n"
@@ -53,40 +45,31 @@ QStringList evaluate(const QString& csv, std::initializer_list<const char*> more
            args({"--range", "10V", "--class", "1.5", "--scale", "zero-at-end"}) + args(more);
 }
 
+constexpr int kPassed = 0; // overall pass or conditional pass
+constexpr int kFailed = 1; // overall fail or conditional fail
+
+// `calc ARGUMENTS --json` with the exit code the overall outcome must give, as a JSON object.
+QJsonObject runEvaluation(const QStringList& arguments, int expectedExit) {
+    const mwtest::CliResult result =
+        mwtest::calc::run(arguments + QStringList{QStringLiteral("--json")});
+    INFO("stderr: " << result.err.toStdString());
+    REQUIRE(result.exitCode == expectedExit);
+    QJsonParseError error{};
+    const QJsonDocument document = QJsonDocument::fromJson(result.out, &error);
+    REQUIRE(error.error == QJsonParseError::NoError);
+    return document.object();
+}
+
 } // namespace
-
-TEST_CASE("calc coverage reproduces GUM Table G.2") {
-    // JCGM 100:2008 Table G.2: t_95.45(16) = 2.17, t_95(2) = 4.30, t_99(16) = 2.92, ∞ -> 2.000.
-    CHECK(runJson(args({"coverage", "--dof", "16"})).value(QStringLiteral("k")).toDouble() ==
-          absolute(2.17, 0.005));
-    CHECK(runJson(args({"coverage", "--dof", "2", "--probability", "95%"}))
-              .value(QStringLiteral("k"))
-              .toDouble() == absolute(4.30, 0.005));
-    CHECK(runJson(args({"coverage", "--dof", "16.7", "--probability", "99%"}))
-              .value(QStringLiteral("k"))
-              .toDouble() == absolute(2.92, 0.005)); // GUM H.1: ν_eff 16.7 -> 16
-    CHECK(runJson(args({"coverage", "--dof", "inf", "--probability", "95.45%"}))
-              .value(QStringLiteral("k"))
-              .toDouble() == absolute(2.000, 0.0005));
-    CHECK(runJson(args({"coverage", "--dof", "100", "--probability", "0.9545"}))
-              .value(QStringLiteral("k"))
-              .toDouble() == absolute(2.025, 0.0005));
-}
-
-TEST_CASE("calc coverage refuses bad options") {
-    requireUsageError(args({"coverage"}), "--dof");
-    requireUsageError(args({"coverage", "--dof", "0"}), "--dof");
-    requireUsageError(args({"coverage", "--dof", "ten"}), "--dof");
-    requireUsageError(args({"coverage", "--dof", "5", "--probability", "150%"}), "--probability");
-}
 
 TEST_CASE("calc evaluate gives per-point errors, budget, decisions, statement and advice") {
     QTemporaryDir dir;
     REQUIRE(dir.isValid());
     const QString csv = fixture(dir, "readings.csv", kSynthetic);
     const QJsonObject json =
-        runJson(evaluate(csv, {"--divisions", "50", "--readability", "0.2", "--reference",
-                               "0.02%rdg+0.01%rng", "--rs", "9900", "--rm", "100"}));
+        runEvaluation(evaluate(csv, {"--divisions", "50", "--readability", "0.2", "--reference",
+                                     "0.02%rdg+0.01%rng", "--rs", "9900", "--rm", "100"}),
+                      kFailed);
     const QJsonArray points = json.value(QStringLiteral("points")).toArray();
     REQUIRE(points.size() == 6);
     const QJsonObject top = points.at(5).toObject();
@@ -108,8 +91,16 @@ TEST_CASE("calc evaluate gives per-point errors, budget, decisions, statement an
     CHECK(top.value(QStringLiteral("expanded_uncertainty")).toDouble() == relative(0.024, 1e-12));
     CHECK(top.value(QStringLiteral("k")).toDouble() == relative(2.0, 1e-9));
     CHECK(top.value(QStringLiteral("dof_effective")).isNull()); // infinite
-    // ANSI/NCSL Z540.3 TUR = limit / U with the reported (rounded-up) U: 0.15 / 0.024 = 6.25.
+    // ANSI/NCSL Z540.3 TUR = limit / U with the reported (rounded-up) U: 0.15 / 0.024 = 6.25,
+    // shown rounded down to two significant digits.
     CHECK(top.value(QStringLiteral("tur")).toDouble() == relative(6.25, 1e-9));
+    CHECK(top.value(QStringLiteral("tur_text")).toString() == QStringLiteral("6.2:1"));
+    CHECK(top.value(QStringLiteral("tur_below_4")) == QJsonValue(false));
+    // JCGM 106:2012: a rejected point reports its conformance probability, no specific risk.
+    CHECK(top.value(QStringLiteral("specific_risk")).isNull());
+    CHECK(top.value(QStringLiteral("conformance_probability")).toDouble() < 0.5);
+    CHECK(points.at(0).toObject().value(QStringLiteral("specific_risk")).toDouble() < 1e-6);
+    CHECK_FALSE(top.contains(QStringLiteral("probability_of_false_accept")));
     // ILAC G8:09/2019 4.2.1 simple acceptance: 0.16 V > 0.15 V fails; 0.14 V at 8 V passes.
     CHECK(top.value(QStringLiteral("decision")).toString() == QStringLiteral("fail"));
     CHECK(points.at(4).toObject().value(QStringLiteral("decision")).toString() ==
@@ -135,8 +126,9 @@ TEST_CASE("calc evaluate with guarded acceptance gives conditional outcomes") {
     QTemporaryDir dir;
     const QString csv = fixture(dir, "readings.csv", kSynthetic);
     const QJsonObject json =
-        runJson(evaluate(csv, {"--divisions", "50", "--reference", "0.02%rdg+0.01%rng", "--rule",
-                               "guarded", "--guard-factor", "1"}));
+        runEvaluation(evaluate(csv, {"--divisions", "50", "--reference", "0.02%rdg+0.01%rng",
+                                     "--rule", "guarded", "--guard-factor", "1"}),
+                      kFailed);
     const QJsonArray points = json.value(QStringLiteral("points")).toArray();
     REQUIRE(points.size() == 6);
     CHECK(points.at(0).toObject().value(QStringLiteral("decision")).toString() ==
@@ -202,119 +194,6 @@ TEST_CASE("calc evaluate names the bad row, column or option") {
                       "--range");
 }
 
-TEST_CASE("calc evaluate refuses a row whose cell count differs from the header") {
-    QTemporaryDir dir;
-    REQUIRE(dir.isValid());
-    // RFC 4180 2.4 (from memory): every record has as many fields as the header. A third cell
-    // under a two-column header must not be dropped silently.
-    const QString extra = fixture(dir, "extra.csv", "applied,indicated\n0,0\n0,0,7\n");
-    requireUsageError(evaluate(extra, {}), "line 3 has 3 cells, but the header (line 1) has 2");
-    const QString fewer = fixture(dir, "fewer.csv", "applied,indicated,direction\n5,5.1,up\n5\n");
-    requireUsageError(evaluate(fewer, {}), "line 3 has 1 cell, but the header (line 1) has 3");
-    // Blank and comment lines still count: the message points at the line a text editor shows.
-    const QString gaps =
-        fixture(dir, "gaps.csv", "# bench log\napplied,indicated\n\n5,5.1\n\n6,6.1,\n");
-    requireUsageError(evaluate(gaps, {}), "gaps.csv line 6 has 3 cells, but the header (line 2)");
-    const QString quote = fixture(dir, "quote.csv", "applied,indicated\n5,\"5.1\n");
-    requireUsageError(evaluate(quote, {}), "line 2: a quoted cell is not closed");
-    const QString twice = fixture(dir, "twice.csv", "applied,Applied,indicated\n1,1,1\n");
-    requireUsageError(evaluate(twice, {}), "twice.csv line 1: column \"applied\" appears twice");
-}
-
-TEST_CASE("calc evaluate takes ';' from the header and a decimal comma with --decimal-comma") {
-    QTemporaryDir dir;
-    REQUIRE(dir.isValid());
-    // Common practice: spreadsheets set to a decimal comma write ';' between cells.
-    const QString semicolon =
-        fixture(dir, "comma.csv", "applied;indicated\n5,0;5,2\n10;10,1\n0;0,05\n");
-    const QJsonObject json = runJson(evaluate(semicolon, {"--decimal-comma"}));
-    const QJsonArray points = json.value(QStringLiteral("points")).toArray();
-    REQUIRE(points.size() == 3);
-    CHECK(points.at(1).toObject().value(QStringLiteral("applied")).toDouble() == 5.0);
-    CHECK(points.at(1).toObject().value(QStringLiteral("error")).toDouble() ==
-          absolute(0.2, 1e-12));
-    CHECK(points.at(2).toObject().value(QStringLiteral("error")).toDouble() ==
-          absolute(0.1, 1e-12));
-    // Without --decimal-comma "5,0" is refused, naming the line and the column.
-    const auto refused = requireUsageError(evaluate(semicolon, {}), "line 2, column applied");
-    CHECK(refused.err.contains("decimal comma is off"));
-    // A ',' file can still carry a decimal comma inside quotes (RFC 4180 2.6, from memory).
-    const QString quoted = fixture(dir, "quoted.csv", "applied,indicated\n\"5,0\",\"5,2\"\n");
-    const QJsonObject fromQuotes = runJson(evaluate(quoted, {"--decimal-comma"}));
-    CHECK(fromQuotes.value(QStringLiteral("points"))
-              .toArray()
-              .at(0)
-              .toObject()
-              .value(QStringLiteral("error"))
-              .toDouble() == absolute(0.2, 1e-12));
-    // Unquoted, "5,0,5,2" is four cells under a two-column header: refused with a hint.
-    const QString unquoted = fixture(dir, "unquoted.csv", "applied,indicated\n5,0,5,2\n");
-    const auto split =
-        requireUsageError(evaluate(unquoted, {"--decimal-comma"}), "line 2 has 4 cells");
-    CHECK(split.err.contains("decimal comma needs ';'"));
-}
-
-TEST_CASE("calc evaluate skips a UTF-8 byte-order mark, blank lines and comments") {
-    QTemporaryDir dir;
-    REQUIRE(dir.isValid());
-    // Common practice: spreadsheet programs start a UTF-8 CSV with the byte-order mark U+FEFF.
-    const QString bom = fixture(dir, "bom.csv",
-                                "\xEF\xBB\xBF"
-                                "applied,indicated\n\n# first run\n5,5.1\n\n10,10.1\n\n");
-    const QJsonObject json = runJson(evaluate(bom, {}));
-    CHECK(json.value(QStringLiteral("points")).toArray().size() == 2);
-}
-
-TEST_CASE("calc evaluate refuses a header column it does not know") {
-    QTemporaryDir dir;
-    REQUIRE(dir.isValid());
-    // A misspelt "direction" must not turn up and down readings into repeats of one point.
-    const QString misspelt =
-        fixture(dir, "misspelt.csv", "applied,indicated,directon\n5,5.1,up\n5,5.2,down\n");
-    const auto refused = requireUsageError(evaluate(misspelt, {}),
-                                           "misspelt.csv line 1: unknown column \"directon\"");
-    CHECK(refused.err.contains("applied, indicated, direction, repeat"));
-    // A trailing separator in the header leaves a column without a name.
-    const QString unnamed = fixture(dir, "unnamed.csv", "applied,indicated,\n5,5.1,\n");
-    requireUsageError(evaluate(unnamed, {}), "unnamed.csv line 1: column 3 has no name");
-}
-
-TEST_CASE("calc evaluate takes CRLF line ends and refuses any other carriage return") {
-    QTemporaryDir dir;
-    REQUIRE(dir.isValid());
-    // RFC 4180 2.1 (from memory): CSV lines end with CRLF; common practice: Windows programs
-    // write them. The same readings with LF and with CRLF give the same evaluation.
-    const QByteArray lf = kSynthetic;
-    QByteArray crlf = lf;
-    crlf.replace("\n", "\r\n");
-    const QJsonObject fromLf = runJson(evaluate(rawFixture(dir, "lf.csv", lf), {}));
-    const QJsonObject fromCrlf = runJson(evaluate(rawFixture(dir, "crlf.csv", crlf), {}));
-    CHECK(fromCrlf.value(QStringLiteral("points")).toArray().size() == 6);
-    CHECK(fromCrlf == fromLf);
-    // A CR inside a cell would otherwise vanish and "1\r5" be read as 15.
-    const QString stray = rawFixture(dir, "stray.csv", "applied,indicated\r\n5,1\r5\r\n");
-    requireUsageError(evaluate(stray, {}),
-                      "stray.csv line 2: a carriage return (CR) at character 4");
-    // Common practice (from memory): classic Mac OS ended lines with CR alone.
-    const QString mac = rawFixture(dir, "mac.csv", "applied,indicated\r5,5.1\r10,10.1\r");
-    const auto crOnly = requireUsageError(evaluate(mac, {}), "mac.csv: lines end with CR only");
-    CHECK_FALSE(crOnly.err.contains("header"));
-}
-
-TEST_CASE("calc evaluate echoes control characters of a bad cell escaped") {
-    QTemporaryDir dir;
-    REQUIRE(dir.isValid());
-    // A NUL would end the message early on a C-string path; it comes back as \x00 with the rest.
-    static const char kWithNul[] = "applied,indicated\n5,5\0001\n";
-    const QByteArray withNul(kWithNul, sizeof kWithNul - 1);
-    const QString nul = rawFixture(dir, "nul.csv", withNul);
-    const auto refused = requireUsageError(
-        evaluate(nul, {}), "nul.csv line 2, column indicated \"5\\x001\": a control character");
-    CHECK_FALSE(refused.err.contains('\0'));
-    const QString tab = fixture(dir, "tab.csv", "applied,indicated,direction\n5,5.1,u\tp\n");
-    requireUsageError(evaluate(tab, {}), "column direction \"u\\x09p\"");
-}
-
 TEST_CASE("calc evaluate names the CSV line of a reading off the range's scale") {
     QTemporaryDir dir;
     REQUIRE(dir.isValid());
@@ -340,7 +219,7 @@ TEST_CASE("calc evaluate takes only class indices of IEC 60051-2") {
     CHECK(json.value(QStringLiteral("permissible_error")).toDouble() == relative(0.25, 1e-12));
     CHECK(json.value(QStringLiteral("statement"))
               .toString()
-              .contains(QStringLiteral("class 2.5 of IEC 60051")));
+              .contains(QStringLiteral("class 2.5 (IEC 60051-1:2016 and IEC 60051-2")));
 }
 
 TEST_CASE("calc evaluate --fiducial sets the fiducial value and is required for non-linear") {
@@ -393,17 +272,180 @@ TEST_CASE("calc evaluate prints its table in engineering notation") {
     const mwtest::CliResult table =
         mwtest::calc::run(evaluate(csv, {"--divisions", "50", "--reference", "0.02%rdg+0.01%rng"}));
     INFO(table.outText().toStdString());
-    REQUIRE(table.exitCode == 0);
+    REQUIRE(table.exitCode == kFailed);
     // The 10 V point of the first test case (values sourced there): error 0.16 V, limit
-    // 0.15 V, U 0.024 V, TUR 6.25, written with SI prefixes like every number the app shows.
+    // 0.15 V, U 0.024 V, TUR 6.25 shown as 6.2:1, written with SI prefixes like every number
+    // the app shows; the error to U's last digit (JCGM 100:2008 7.2.6).
     const QStringList lines = table.outText().split(QLatin1Char('\n'));
     const auto top = std::find_if(lines.begin(), lines.end(), [](const QString& line) {
         return line.trimmed().startsWith(QStringLiteral("10.000 V"));
     });
     REQUIRE(top != lines.end());
-    CHECK(top->contains(QStringLiteral("160 mV")));
+    CHECK(top->contains(QStringLiteral("+160 mV")));
     CHECK(top->contains(QStringLiteral("150 mV")));
     CHECK(top->contains(QStringLiteral("24 mV")));
-    CHECK(top->contains(QStringLiteral("6.25")));
+    CHECK(top->contains(QStringLiteral("6.2:1")));
+    CHECK(top->contains(QStringLiteral("Fail")));
     CHECK_FALSE(top->contains(QStringLiteral("0.16")));
+    // The budget of the worst point, with every column (JCGM 100:2008 4.3.7, G.4.1).
+    const QString out = table.outText();
+    CHECK(out.contains(QStringLiteral("budget at 10.000 V")));
+    CHECK(out.contains(QStringLiteral("reference standard")));
+    CHECK(out.contains(QStringLiteral("readability of the scale")));
+    CHECK(out.contains(QStringLiteral("rectangular")));
+    CHECK(out.contains(QStringLiteral("u_c = 11.7 mV")));
+    CHECK(out.contains(QStringLiteral("k = 2.00, U = 24 mV")));
+    CHECK(out.contains(QStringLiteral("statement: As-found results")));
+}
+
+TEST_CASE("calc evaluate says which budget parts it left out and gives no TUR then") {
+    QTemporaryDir dir;
+    REQUIRE(dir.isValid());
+    const QString csv = fixture(dir, "readings.csv", "applied,indicated\n5,5.05\n10,10.08\n");
+    // A TUR needs the uncertainty of the calibration process (ANSI/NCSL Z540.3 Handbook);
+    // without the reference standard it is not stated.
+    const QJsonObject json = runEvaluation(evaluate(csv, {}), kPassed);
+    const QJsonArray omitted = json.value(QStringLiteral("omitted_components")).toArray();
+    REQUIRE(omitted.size() == 2);
+    CHECK(omitted.at(0).toObject().value(QStringLiteral("name")).toString() ==
+          QStringLiteral("reference standard"));
+    CHECK(omitted.at(1).toObject().value(QStringLiteral("name")).toString() ==
+          QStringLiteral("readability of the scale"));
+    const QJsonObject point = json.value(QStringLiteral("points")).toArray().at(0).toObject();
+    CHECK(point.value(QStringLiteral("tur")).isNull());
+    CHECK(point.value(QStringLiteral("tur_below_4")).isNull());
+    CHECK(json.value(QStringLiteral("statement"))
+              .toString()
+              .contains(QStringLiteral("budget is incomplete")));
+    const mwtest::CliResult text = mwtest::calc::run(evaluate(csv, {}));
+    CHECK(text.exitCode == kPassed);
+    CHECK(text.outText().contains(QStringLiteral("left out: reference standard")));
+    CHECK(text.outText().contains(
+        QStringLiteral("caution: Left out of the uncertainty budget: reference standard")));
+}
+
+TEST_CASE("calc evaluate --phase, --reference-range, dof, resolution and temperature") {
+    QTemporaryDir dir;
+    REQUIRE(dir.isValid());
+    const QString csv = fixture(dir, "readings.csv", "applied,indicated\n5,5.05\n10,10.08\n");
+    // ISO/IEC 17025:2017 7.8.4.1 d): the statement says which results it covers.
+    const QJsonObject asLeft =
+        runEvaluation(evaluate(csv, {"--phase", "as-left", "--reference", "U=2mV,k=2",
+                                     "--reference-id", "calibrator CAL-7"}),
+                      kPassed);
+    CHECK(asLeft.value(QStringLiteral("phase")).toString() == QStringLiteral("as-left"));
+    CHECK(asLeft.value(QStringLiteral("statement"))
+              .toString()
+              .startsWith(QStringLiteral("As-left results")));
+    CHECK(asLeft.value(QStringLiteral("statement"))
+              .toString()
+              .contains(QStringLiteral("Reference standard: calibrator CAL-7")));
+    // ±(0.01 % rng) on the standard's 100 V range: 10 mV half-width, not 1 mV on the meter's
+    // 10 V (rectangular, JCGM 100:2008 4.3.7).
+    const QJsonObject onStandard = runEvaluation(
+        evaluate(csv, {"--reference", "0%rdg+0.01%rng", "--reference-range", "100"}), kPassed);
+    const QJsonObject budgetRow = onStandard.value(QStringLiteral("points"))
+                                      .toArray()
+                                      .at(1)
+                                      .toObject()
+                                      .value(QStringLiteral("budget"))
+                                      .toArray()
+                                      .at(0)
+                                      .toObject();
+    CHECK(budgetRow.value(QStringLiteral("value")).toDouble() == relative(0.01, 1e-12));
+    CHECK(onStandard.value(QStringLiteral("reference_range")).toObject() ==
+          QJsonObject{{QStringLiteral("value"), 100.0}, {QStringLiteral("assumed"), false}});
+    // The certificate's ν = 8 reaches Welch-Satterthwaite: ν_eff = 8, k = 2.37 (Table G.2).
+    const QJsonObject dof =
+        runEvaluation(evaluate(csv, {"--reference", "U=20mV,k=2,dof=8"}), kPassed);
+    const QJsonObject top = dof.value(QStringLiteral("points")).toArray().at(1).toObject();
+    CHECK(top.value(QStringLiteral("dof_effective")).toDouble() == relative(8.0, 1e-9));
+    CHECK(top.value(QStringLiteral("k")).toDouble() == absolute(2.37, 0.005));
+    // Resolution (half of 10 mV, rectangular) and a temperature effect of 100 ppm/K over 5 K
+    // at 10 V: 5 mV half-width (rectangular), as components of their own.
+    const QJsonObject more =
+        runEvaluation(evaluate(csv, {"--reference", "U=2mV,k=2", "--reference-resolution", "10mV",
+                                     "--ambient", "28C", "--tempco", "100ppm/K"}),
+                      kPassed);
+    const QJsonArray rows = more.value(QStringLiteral("points"))
+                                .toArray()
+                                .at(1)
+                                .toObject()
+                                .value(QStringLiteral("budget"))
+                                .toArray();
+    REQUIRE(rows.size() == 3);
+    CHECK(rows.at(1).toObject().value(QStringLiteral("name")).toString() ==
+          QStringLiteral("resolution of the reference"));
+    CHECK(rows.at(1).toObject().value(QStringLiteral("value")).toDouble() ==
+          relative(0.005, 1e-12));
+    CHECK(rows.at(2).toObject().value(QStringLiteral("name")).toString() ==
+          QStringLiteral("temperature effect"));
+    CHECK(rows.at(2).toObject().value(QStringLiteral("value")).toDouble() == relative(0.005, 1e-9));
+    requireUsageError(evaluate(csv, {"--tempco", "100ppm/K"}), "--ambient");
+    requireUsageError(evaluate(csv, {"--ambient", "28C"}), "--tempco");
+    requireUsageError(evaluate(csv, {"--reference-range", "100"}), "--reference");
+    requireUsageError(evaluate(csv, {"--phase", "later"}), "--phase");
+}
+
+TEST_CASE("calc evaluate exits 1 for fail and conditional fail, 0 otherwise") {
+    QTemporaryDir dir;
+    REQUIRE(dir.isValid());
+    // ILAC G8:09/2019 4.2.3 with w = U = 24 mV (as in the guarded test case above):
+    // 0.14 V on 0.15 V is a conditional pass (exit 0); 0.16 V a conditional fail (exit 1).
+    const QString condPass = fixture(dir, "cp.csv", "applied,indicated\n8,8.14\n10,10.1\n");
+    const QString condFail = fixture(dir, "cf.csv", "applied,indicated\n8,8.1\n10,10.16\n");
+    const auto guarded = {"--divisions",       "50",     "--reference",
+                          "0.02%rdg+0.01%rng", "--rule", "guarded"};
+    CHECK(runEvaluation(evaluate(condPass, guarded), kPassed)
+              .value(QStringLiteral("overall"))
+              .toString() == QStringLiteral("conditional-pass"));
+    CHECK(runEvaluation(evaluate(condFail, guarded), kFailed)
+              .value(QStringLiteral("overall"))
+              .toString() == QStringLiteral("conditional-fail"));
+    // 4.2.2: the binary guarded rule fails what 4.2.3 calls a conditional pass.
+    CHECK(runEvaluation(evaluate(condPass, {"--divisions", "50", "--reference", "0.02%rdg+0.01%rng",
+                                            "--rule", "guarded-binary"}),
+                        kFailed)
+              .value(QStringLiteral("overall"))
+              .toString() == QStringLiteral("fail"));
+    const mwtest::CliResult help = mwtest::calc::run(args({"evaluate", "--help"}));
+    const QString helpText = help.outText().simplified();
+    CHECK(helpText.contains(QStringLiteral("1 when it is fail or conditional fail")));
+    CHECK(helpText.contains(QStringLiteral("guarded-binary (4.2.2 binary statement with guard "
+                                           "band")));
+    requireUsageError(evaluate(condPass, {"--guard-factor", "2"}), "--rule guarded");
+}
+
+TEST_CASE("calc evaluate cautions: TUR below 4:1 with simple acceptance, hazardous voltage") {
+    QTemporaryDir dir;
+    REQUIRE(dir.isValid());
+    const QString csv = fixture(dir, "readings.csv", "applied,indicated\n5,5.05\n10,10.08\n");
+    // ANSI/NCSL Z540.3 5.3: a TUR of at least 4:1 as fallback; ±50 mV rectangular gives
+    // U = 58 mV and 0.15 / 0.058 = 2.6 (shown rounded down, 2.5:1).
+    const mwtest::CliResult lowTur = mwtest::calc::run(evaluate(csv, {"--reference", "50mV"}));
+    CHECK(lowTur.exitCode == kPassed);
+    CHECK(lowTur.outText().contains(QStringLiteral("caution: Simple acceptance with a TUR "
+                                                   "below 4:1")));
+    CHECK(lowTur.outText().contains(QStringLiteral("2.5:1")));
+    // IEC 61010-1 6.3.1: 300 V DC is above the 60 V DC hazardous-live limit.
+    const QString high = fixture(dir, "high.csv", "applied,indicated\n100,100.5\n300,301\n");
+    const QStringList onHigh =
+        QStringList{QStringLiteral("evaluate"), QStringLiteral("--readings"), high} +
+        args({"--range", "300V", "--class", "1.5"});
+    const QJsonObject json = runEvaluation(onHigh, kPassed);
+    CHECK(
+        json.value(QStringLiteral("hazard_caution")).toString().contains(QStringLiteral("61010")));
+    const mwtest::CliResult text = mwtest::calc::run(onHigh);
+    // The largest voltage on the terminals, here the 301 V indicated.
+    CHECK(text.outText().contains(QStringLiteral("caution: 301 V DC exceeds the hazardous-live "
+                                                 "limits of IEC 61010-1")));
+    // 50 V is within the DC limit, but an AC voltmeter at 50 V rms is above 30 V rms.
+    const QString fifty = fixture(dir, "fifty.csv", "applied,indicated\n25,25.1\n50,50.2\n");
+    const QStringList onFifty =
+        QStringList{QStringLiteral("evaluate"), QStringLiteral("--readings"), fifty} +
+        args({"--range", "50V", "--class", "1.5"});
+    CHECK(runEvaluation(onFifty, kPassed).value(QStringLiteral("hazard_caution")).isNull());
+    CHECK(runEvaluation(onFifty + args({"--kind", "bridge"}), kPassed)
+              .value(QStringLiteral("hazard_caution"))
+              .isString());
 }

@@ -298,3 +298,50 @@ TEST_CASE("calc indication and waveform print numbers in engineering notation") 
     REQUIRE(indication.exitCode == 0);
     CHECK(indication.outText().contains(QStringLiteral("0.0351 % of range")));
 }
+
+TEST_CASE("calc multiplier: one resistor over its working voltage is named") {
+    // R_s = V/I_fs − R_m: 250 V, 50 µA, 2 kΩ → 4.998 MΩ (Helfrick & Cooper §4 formula); 300 V
+    // across it at 120 % of range (Ohm's law) against the 250 V working voltage of a 0.25 W
+    // film resistor (common practice, from memory). The DC line says nothing of diodes.
+    const QStringList design =
+        args({"multiplier", "--ifs", "50uA", "--rm", "2k", "--range", "250V"});
+    const QJsonObject json = runJson(design);
+    CHECK(number(json, "multiplier_ohm") == relative(4.998e6, 1e-12));
+    CHECK(number(json, "voltage_overrange_v") == relative(1.2 * 50e-6 * 4.998e6, 1e-12));
+    CHECK(json.value(QStringLiteral("exceeds_voltage_rating")).toBool());
+    CHECK_FALSE(json.value(QStringLiteral("exceeds_rating")).toBool());
+    CHECK(json.value(QStringLiteral("caution"))
+              .toString()
+              .contains(QStringLiteral("OVER the voltage rating")));
+    // A 500 V part takes it; the hazard caution of IEC 61010-1 stays (250 V DC > 60 V DC).
+    const QJsonObject rated = runJson(design + args({"--voltage-rating", "500V"}));
+    CHECK_FALSE(rated.value(QStringLiteral("exceeds_voltage_rating")).toBool());
+    CHECK(rated.value(QStringLiteral("caution")).toString().contains(QStringLiteral("61010")));
+    const mwtest::CliResult text = mwtest::calc::run(design);
+    CHECK(text.exitCode == 0);
+    CHECK_FALSE(text.outText().contains(QStringLiteral("ideal diodes")));
+    CHECK(text.outText().contains(QStringLiteral("OVER the voltage rating")));
+}
+
+TEST_CASE("calc indication and waveform caution at hazardous voltages") {
+    // IEC 61010-1 6.3.1 a): 60 V DC, 30 V rms, 42.4 V peak.
+    const QJsonObject dc =
+        runJson(args({"indication", "--ifs", "1mA", "--rm", "1k", "--rs", "299k", "--range", "300V",
+                      "--input", "300V", "--rectifier", "none"}));
+    CHECK(dc.value(QStringLiteral("caution")).toString().contains(QStringLiteral("61010")));
+    const QJsonObject low =
+        runJson(args({"indication", "--ifs", "1mA", "--rm", "1k", "--rs", "299k", "--range", "300V",
+                      "--input", "50V", "--rectifier", "none"}));
+    CHECK(low.value(QStringLiteral("caution")).isNull());
+    const mwtest::CliResult text =
+        mwtest::calc::run(args({"indication", "--ifs", "1mA", "--rm", "1k", "--rs", "299k",
+                                "--range", "300V", "--input", "300V", "--rectifier", "none"}));
+    CHECK(text.outText().contains(QStringLiteral("caution")));
+    // 25 V rms of a triangle has a 43.3 V peak (crest factor √3): above 42.4 V peak.
+    CHECK(runJson(args({"waveform", "--waveform", "triangle", "--rms", "25V"}))
+              .value(QStringLiteral("caution"))
+              .isString());
+    CHECK(runJson(args({"waveform", "--waveform", "square", "--rms", "25V"}))
+              .value(QStringLiteral("caution"))
+              .isNull());
+}

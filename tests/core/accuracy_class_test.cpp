@@ -44,6 +44,19 @@ TEST_CASE("permissible error is the class index in percent of the fiducial value
     CHECK(permissibleError(1.5, 250.0) / 50.0 * 100.0 == mwtest::relative(7.5, 1e-12));
 }
 
+TEST_CASE("the limit is exact in decimals at every prefix") {
+    // IEC 60051-1: class index % of the fiducial value. 1.5 % of 10 V is 0.15 V exactly, and
+    // the double returned is the one nearest 0.15 (1.5 / 100 * 10 in binary is not).
+    CHECK(permissibleError(1.5, 10.0) == 0.15);
+    CHECK(exactPermissibleError(1.5, {0.0, 10.0, ScaleType::ZeroAtEnd, {}}) ==
+          ExactDecimal::parse("0.15"));
+    CHECK(exactPermissibleError(0.3, {-50e-6, 50e-6, ScaleType::ZeroInside, {}}) ==
+          ExactDecimal::parse("3e-7"));
+    CHECK(exactPermissibleError(2.5, {0.0, 30e3, ScaleType::ZeroAtEnd, {}}) ==
+          ExactDecimal::parse("750"));
+    CHECK(exactFiducialValue({-0.1, 0.2, ScaleType::ZeroInside, {}}) == ExactDecimal::parse("0.3"));
+}
+
 TEST_CASE("bad scales are refused with the reason") {
     CHECK_THROWS_WITH(fiducialValue({0.0, 1000.0, ScaleType::NonLinear, {}}),
                       Catch::Contains("scale length"));

@@ -58,8 +58,10 @@ TEST_CASE("each dominant effect is named") {
     CHECK(span.spanEffect == mwtest::absolute(0.1, 1e-12));
     CHECK_THAT(span.explanation, Catch::Contains("shunt"));
 
+    // Hysteresis counts with half its width, the part the worse direction adds to the error:
+    // 0.12 V between up and down is 0.06 V of error, 40 % of the limit.
     const Advice friction =
-        adviseAdjustment(adviceFor(InstrumentKind::DcVoltmeter, synthetic(0.0, 1.0, 0.06, none)));
+        adviseAdjustment(adviceFor(InstrumentKind::DcVoltmeter, synthetic(0.0, 1.0, 0.12, none)));
     CHECK(friction.cause == LikelyCause::Friction);
     CHECK_THAT(friction.explanation, Catch::Contains("pivots"));
 
@@ -116,4 +118,48 @@ TEST_CASE("a point without readings is named with its applied value in its unit"
                                                              Catch::Contains("no reading"));
     AdviceInput input = adviceFor(InstrumentKind::DcVoltmeter, {{0.0, 0.0, {}}, {2.5e-3, {}, {}}});
     CHECK_THROWS_WITH(adviseAdjustment(input), Catch::Contains("2.500 mV"));
+}
+
+TEST_CASE("causes are ranked by how much of the error each explains") {
+    // Invented errors: zero +0.03 V, span 1.012 (0.12 V at 10 V) and hysteresis 0.02 V on a
+    // class 1.5, 10 V meter (limit 0.15 V): the span explains most of the worst error, the zero
+    // a fifth of the limit (not significant at a quarter), the hysteresis almost nothing.
+    const Advice advice = adviseAdjustment(
+        adviceFor(InstrumentKind::DcVoltmeter, synthetic(0.03, 1.012, 0.02, none)));
+    REQUIRE(advice.effects.size() == 4);
+    CHECK(advice.effects[0].cause == LikelyCause::Span);
+    CHECK(advice.effects[0].size == mwtest::absolute(0.12, 1e-12));
+    CHECK(advice.effects[0].fractionOfLimit == mwtest::relative(0.8, 1e-9));
+    CHECK(advice.effects[1].cause == LikelyCause::Zero);
+    CHECK_FALSE(advice.effects[1].significant);
+    CHECK(advice.effects.back().size <= advice.effects[1].size);
+    CHECK(advice.adjustmentNeeded); // worst error 0.16 V, 107 % of the limit
+    CHECK(advice.cause == LikelyCause::Span);
+    CHECK(advice.alsoSignificant.empty());
+    CHECK_THAT(advice.explanation, Catch::StartsWith("adjustment advised"));
+    CHECK_THAT(advice.explanation, !Catch::Contains("zero offset") && !Catch::Contains("pivots"));
+}
+
+TEST_CASE("an effect within the measurement uncertainty is not called significant") {
+    // A zero of 0.05 V is a third of the limit, but with U = 0.06 V the readings cannot show it.
+    AdviceInput input = adviceFor(InstrumentKind::DcVoltmeter, synthetic(0.05, 1.0, 0.0, none));
+    CHECK(adviseAdjustment(input).cause == LikelyCause::Zero);
+    input.expandedUncertainty = 0.06;
+    const Advice advice = adviseAdjustment(input);
+    CHECK(advice.cause == LikelyCause::None);
+    CHECK_FALSE(advice.adjustmentNeeded); // 0.05 V is a third of the limit
+    CHECK_THAT(advice.explanation, Catch::StartsWith("no adjustment needed"));
+}
+
+TEST_CASE("a failing meter with no clear cause is told to measure again, not to repair") {
+    // Errors up to 0.13 V (87 % of the limit) that no single effect explains beyond U.
+    AdviceInput input = adviceFor(InstrumentKind::DcVoltmeter, synthetic(0.0, 1.0, 0.0, none));
+    input.points[2].errorUp = 0.13;
+    input.points[2].errorDown = 0.13;
+    input.expandedUncertainty = 0.14;
+    const Advice advice = adviseAdjustment(input);
+    CHECK(advice.adjustmentNeeded);
+    CHECK(advice.cause == LikelyCause::None);
+    CHECK_THAT(advice.explanation,
+               Catch::Contains("repeat the readings") && !Catch::Contains("repair"));
 }

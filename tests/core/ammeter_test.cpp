@@ -38,6 +38,14 @@ TEST_CASE("Ayrton shunt of Helfrick & Cooper Example 4-2, by topology") {
     CHECK(s.sections_ohm[2] == relative(0.04004, 1e-3));  // added for 1 A
     CHECK(s.taps_ohm[0] == relative(s.total_ohm, 1e-12));
     CHECK(s.taps_ohm[2] == relative(s.sections_ohm[0], 1e-12));
+    // Burden at full scale: the movement branch I_fs·(R_m + R_total − T_k), which by
+    // Kirchhoff's laws on the same topology equals the drop (I_k − I_fs)·T_k across the tapped
+    // part of the string; on 1 A it is the movement's 1 mA × 50 Ω = 50 mV (Ohm's law).
+    REQUIRE(s.burden_V.size() == 3);
+    CHECK(s.burden_V[0] == relative(0.05, 1e-12));
+    for (std::size_t k = 0; k < 3; ++k) {
+        CHECK(s.burden_V[k] == relative((s.amps_ranges[k] - 1e-3) * s.taps_ohm[k], 1e-12));
+    }
 }
 
 TEST_CASE("every Ayrton tap gives full scale at its range (circuit check)") {

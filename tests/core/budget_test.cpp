@@ -167,6 +167,24 @@ TEST_CASE("test uncertainty ratio by the Z540.3 Handbook definition") {
     CHECK_THROWS_AS(testUncertaintyRatio(1.0, -1.0, 0.1), std::invalid_argument);
 }
 
+TEST_CASE("TUR below 4:1 is decided exactly and shown rounded down to two digits") {
+    // ANSI/NCSL Z540.3 Handbook TUR = span / (2U), 5.3 fallback 4:1 (check-values.md 4.2).
+    // ±0.15 V with U = 0.0375 V is exactly 4:1, though 0.3 / 0.075 is 3.9999999999999996 in
+    // binary arithmetic.
+    const ExactDecimal span = ExactDecimal::parse("0.3");
+    CHECK_FALSE(turBelowMinimum(span, ExactDecimal::parse("0.0375")));
+    CHECK(turBelowMinimum(span, ExactDecimal::parse("0.03751")));
+    CHECK(turRoundedDown(span, ExactDecimal::parse("0.0375")) == 4.0);
+    CHECK(formatTur(turRoundedDown(span, ExactDecimal::parse("0.0375"))) == "4.0:1");
+    // 3.98... is shown as 3.9, never flattered to 4.0; 6.25 as 6.2; 15.6 as 15.
+    CHECK(formatTur(turRoundedDown(span, ExactDecimal::parse("0.03768"))) == "3.9:1");
+    CHECK(formatTur(turRoundedDown(span, ExactDecimal::parse("0.024"))) == "6.2:1");
+    CHECK(formatTur(turRoundedDown(span, ExactDecimal::parse("0.0096"))) == "15:1");
+    CHECK(formatTur(turRoundedDown(ExactDecimal::parse("2"), ExactDecimal::parse("0.001"))) ==
+          "1000:1");
+    CHECK(std::isinf(turRoundedDown(span, ExactDecimal())));
+}
+
 TEST_CASE("a bad component is named in the error") {
     UncertaintyComponent bad;
     bad.name = "reference standard";

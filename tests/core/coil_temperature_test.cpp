@@ -63,6 +63,30 @@ TEST_CASE("span error of a shunted ammeter") {
     CHECK(error == relative(-0.00393 * 100.0 / 101.0101, 2e-2));
 }
 
+TEST_CASE("an unswamped copper coil on a manganin shunt is cautioned") {
+    // The same ammeter: about -0.39 %/K, -3.8 % over 10 K (IEC 60028 copper), more than the
+    // class index per 10 K that IEC 60051-1 allows for temperature (from memory) for any
+    // class up to 3.
+    CoilCircuit ammeter;
+    ammeter.ohms_coil_20C = 100.0;
+    ammeter.shunt = TempcoResistor{1.0101, 0.0};
+    CHECK(spanDriftPer10K(ammeter) == relative(-0.038, 0.05));
+    const auto caution = unswampedShuntCaution(ammeter, 1.5);
+    REQUIRE(caution);
+    CHECK_THAT(*caution, Catch::StartsWith("The copper coil is not swamped") &&
+                             Catch::Contains("per 10 K") && Catch::Contains("swamping resistor"));
+    // Swamped 1:20 with manganin (α ≈ 0) the drift falls to about 0.19 % per 10 K (swamping
+    // rule, check-values.md 8): within class 0.5, and no caution.
+    CoilCircuit swamped = ammeter;
+    swamped.series = TempcoResistor{1900.0, 0.0};
+    CHECK(std::fabs(spanDriftPer10K(swamped)) < 0.005);
+    CHECK_FALSE(unswampedShuntCaution(swamped, 0.5).has_value());
+    // A voltmeter has no shunt to be swamped against.
+    CoilCircuit voltmeter;
+    voltmeter.ohms_coil_20C = 100.0;
+    CHECK_FALSE(unswampedShuntCaution(voltmeter, 0.5).has_value());
+}
+
 TEST_CASE("swamping design for a voltage-driven coil meets the target exactly") {
     // Closed form for a zero-tempco swamp (derived from the swamping rule, common practice):
     // |R_m(ref) - R_m(t)| / (R_sw + R_m(t)) = limit at the worse end.

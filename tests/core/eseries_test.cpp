@@ -134,11 +134,66 @@ TEST_CASE("dissipation at full scale and at 120 % overrange") {
     CHECK(big.watts_fs == relative(0.25, 1e-12));
     CHECK(big.watts_overrange == relative(0.36, 1e-12));
     CHECK(big.volts_overrange == relative(300.0, 1e-12));
-    CHECK(big.exceedsRating); // common practice: 0.25 W parts run at half rating
+    CHECK(big.volts_fs == relative(250.0, 1e-12));
+    CHECK(big.aboveDeratedRating); // common practice: 0.25 W parts run at half rating
+    CHECK(big.overRating);         // 0.36 W at 120 % on a 0.25 W part
     const Dissipation small = dissipation(9.9e3, 1e-3);
     CHECK(small.watts_fs == relative(9.9e-3, 1e-12));
-    CHECK_FALSE(small.exceedsRating);
-    CHECK_FALSE(dissipation(250e3, 1e-3, 1.0).exceedsRating); // a 1 W part is fine
+    CHECK_FALSE(small.aboveDeratedRating);
+    CHECK_FALSE(small.overRating);
+    CHECK_FALSE(small.overVoltageRating);
+    CHECK_FALSE(dissipation(250e3, 1e-3, 1.0).aboveDeratedRating); // a 1 W part is fine
     CHECK_THROWS_AS(dissipation(-1.0, 1e-3), std::domain_error);
     CHECK_THROWS_AS(dissipation(1.0, 1e-3, 0.0), std::domain_error);
+    CHECK_THROWS_AS(dissipation(1.0, 1e-3, 0.25, 0.5, 0.0), std::domain_error);
+}
+
+TEST_CASE("a part over its power rating is called over, not merely above half") {
+    // A 0.1 Ω shunt carrying 3.162 A dissipates 1 W at full scale (I²R), four times a 0.25 W
+    // rating (values of our own).
+    const Dissipation shunt = dissipation(0.1, std::sqrt(10.0));
+    CHECK(shunt.watts_fs == relative(1.0, 1e-12));
+    CHECK(shunt.overRating);
+    const auto caution = ratingCaution(shunt, "the shunt");
+    REQUIRE(caution);
+    CHECK_THAT(*caution, Catch::StartsWith("OVER the power rating: the shunt dissipates 1.00 W"));
+    // Between half the rating and the rating: the derating note, not "over".
+    const Dissipation warm = dissipation(0.1, 1.2); // 0.207 W at 120 %
+    CHECK(warm.aboveDeratedRating);
+    CHECK_FALSE(warm.overRating);
+    CHECK_THAT(ratingCaution(warm, "the shunt").value_or(""),
+               Catch::StartsWith("Above the derated power"));
+    CHECK_FALSE(ratingCaution(dissipation(9.9e3, 1e-3), "the multiplier").has_value());
+}
+
+TEST_CASE("a multiplier over the working voltage of one resistor is named") {
+    // A 5 MΩ multiplier of a 50 µA movement on a 250 V range has 250 V across it at full scale
+    // and 300 V at 120 % (Ohm's law); a 0.25 W film resistor is rated for about 250 V (common
+    // practice, from memory), so one part is not enough. 12.5 mW is well within its power.
+    const Dissipation multiplier = dissipation(5e6, 50e-6);
+    CHECK(multiplier.volts_overrange == relative(300.0, 1e-12));
+    CHECK(multiplier.volts_rating == kTypicalVoltageRating_V);
+    CHECK(multiplier.overVoltageRating);
+    CHECK_FALSE(multiplier.aboveDeratedRating);
+    const auto caution = ratingCaution(multiplier, "the multiplier");
+    REQUIRE(caution);
+    CHECK_THAT(*caution, Catch::StartsWith("OVER the voltage rating: the multiplier has 300 V "
+                                           "across it") &&
+                             Catch::Contains("resistors in series"));
+    // A part rated for 500 V takes it.
+    CHECK_FALSE(dissipation(5e6, 50e-6, 0.25, 0.5, 500.0).overVoltageRating);
+}
+
+TEST_CASE("a trim only a sub-ohm trimmer could make is not suggested") {
+    // Helfrick & Cooper Example 4-1 shunt, 1.0101 Ω, as E96: 1.00 Ω + 10.1 mΩ. Covering the
+    // 1 % tolerance takes 20.1 mΩ, far below the smallest practical trimmer (about 10 Ω,
+    // common practice, from memory).
+    const ResistorChoice shunt = chooseResistor(1.0101, ESeries::E96);
+    CHECK(shunt.ohms_standard == relative(1.0, 1e-12));
+    CHECK_FALSE(shunt.trimPractical);
+    CHECK_THAT(shunt.trimNote,
+               Catch::StartsWith("no trim suggested") && Catch::Contains("smallest practical one"));
+    // The multiplier of Example 4-9 needs a 200 Ω trimmer: practical.
+    CHECK(chooseResistor(8950.0, ESeries::E96).trimPractical);
+    CHECK(chooseResistor(8950.0, ESeries::E96).trimNote.empty());
 }

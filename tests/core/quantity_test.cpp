@@ -171,6 +171,27 @@ TEST_CASE("parseValue takes a bare number in the expected unit and refuses anoth
     CHECK_THROWS_WITH(parseValue("4.7K", Unit::Ohm), Catch::Contains("temperature"));
 }
 
+TEST_CASE("a bare number takes the prefix of its context, a typed unit is converted") {
+    // On a 50 µA range the scale shows "50" for 50 µA: a bare -50 is -50 µA, and it is the
+    // same double as "-50 µA" (one decimal conversion), not -50 × 1e-6 in binary arithmetic.
+    ParseOptions micro;
+    micro.bareNumberPowerOfTen = -6;
+    CHECK(parseValue("-50", Unit::Ampere, micro) == parseValue("-50 µA", Unit::Ampere));
+    CHECK(parseValue("49.925", Unit::Ampere, micro) == 49.925e-6);
+    CHECK(parseValue("0.05 mA", Unit::Ampere, micro) == 50e-6); // a unit typed: converted
+    CHECK(parseValue("2 A", Unit::Ampere, micro) == 2.0);
+    CHECK(parseValue("7m", Unit::Ampere, micro) == 7e-3); // a prefix typed: its own
+    ParseOptions kilo;
+    kilo.bareNumberPowerOfTen = 3;
+    CHECK(parseValue("1.5", Unit::Volt, kilo) == 1500.0);
+    // The prefix as typed is reported, for the unit of a range.
+    CHECK(parseQuantity("50uA").prefixPower == -6);
+    CHECK(parseQuantity("-50").prefixPower == 0);
+    CHECK(parseQuantity("10 kV").prefixPower == 3);
+    CHECK(parseQuantity("4k7").prefixPower == 3);
+    CHECK(parseQuantity("10V").prefixPower == 0);
+}
+
 TEST_CASE("kelvin and degrees Celsius are the one converted pair") {
     // 0 °C = 273.15 K exactly: SI Brochure, 9th edition, 2.3.1 (unit of temperature).
     CHECK(parseValue("296.15K", Unit::DegreeCelsius) == relative(23.0, 1e-12));
@@ -203,6 +224,18 @@ TEST_CASE("engineering notation picks the SI prefix and the significant digits")
     CHECK(formatEngineering(std::numeric_limits<double>::infinity(), 3) == "inf");
     CHECK(formatEngineering(-std::numeric_limits<double>::infinity(), 3, Unit::Ohm) == "-inf Ω");
     CHECK(formatEngineering(4700.0, 0, Unit::Ohm) == "5 kΩ"); // digits clamp to at least 1
+}
+
+TEST_CASE("a value written to a decimal place, in a chosen prefix") {
+    // JCGM 100:2008 7.2.6: a result is given to the same last digit as its uncertainty.
+    CHECK(formatAtExponent(0.1603, -3, Unit::Volt) == "160 mV");
+    CHECK(formatAtExponent(1.2345, -3, Unit::Volt) == "1.235 V"); // half away from zero
+    CHECK(formatAtExponent(-0.0125, -3, Unit::Volt) == "-13 mV");
+    CHECK(formatAtExponent(0.0, -3, Unit::Volt) == "0 mV");
+    CHECK(formatAtExponent(0.0, -9, Unit::Ampere, -6) == "0.000 µA"); // a column in µA
+    CHECK(formatAtExponent(50e-6, -9, Unit::Ampere, -6) == "50.000 µA");
+    CHECK(formatAtExponent(10.0, -3, Unit::Volt, 0) == "10.000 V");
+    CHECK(formatAtExponent(2.5, -2, Unit::Percent) == "2.50 %");
 }
 
 TEST_CASE("formatted values parse back to the value rounded to the printed digits") {

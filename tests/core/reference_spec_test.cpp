@@ -42,6 +42,28 @@ TEST_CASE("a fixed value and a certificate's expanded uncertainty") {
     const UncertaintyComponent c = referenceComponent(certificate, 7.0, 10.0);
     CHECK(c.distribution == Distribution::Normal);
     CHECK(standardUncertainty(c) == mwtest::relative(0.6e-3, 1e-12));
+    CHECK(std::isinf(c.dof)); // none stated: taken as exactly known (JCGM 100:2008 G.4.3)
+}
+
+TEST_CASE("a certificate's degrees of freedom are read and carried into the component") {
+    // JCGM 100:2008 G.4.1: a certificate stating ν_eff = 8 for its U gives the component ν = 8.
+    const ReferenceSpec spec = parseReferenceSpec("U=1mV,k=2,dof=8", Unit::Volt);
+    CHECK(spec.form == ReferenceSpecForm::Certificate);
+    CHECK(spec.fixedValue == mwtest::relative(1e-3, 1e-12));
+    CHECK(spec.dof == 8.0);
+    CHECK(referenceComponent(spec, 5.0, 10.0).dof == 8.0);
+    CHECK(parseReferenceSpec("0.02%rdg+0.01%rng, DOF=50", Unit::Volt).dof == 50.0);
+    CHECK(std::isinf(parseReferenceSpec("U=1mV,k=2,dof=inf", Unit::Volt).dof));
+    CHECK_THROWS_WITH(parseReferenceSpec("U=1mV,k=2,dof=0", Unit::Volt),
+                      Catch::Contains("degrees of freedom"));
+    CHECK_THROWS_WITH(parseReferenceSpec("U=1mV,k=2,dof=x", Unit::Volt),
+                      Catch::Contains("character 15"));
+    // Round trip keeps it; a bare number takes the range's prefix when asked.
+    CHECK(parseReferenceSpec(formatReferenceSpec(spec), Unit::Volt).dof == 8.0);
+    ParseOptions micro;
+    micro.bareNumberPowerOfTen = -6;
+    CHECK(parseReferenceSpec("U=0.5,k=2", Unit::Ampere, micro).fixedValue == 0.5e-6);
+    CHECK(describeReferenceSpec(spec, Unit::Volt) == "U = 1.00 mV (k = 2, \u03BD = 8)");
 }
 
 TEST_CASE("the text form round-trips") {

@@ -28,3 +28,21 @@ TEST_CASE("decision outcomes use the ILAC G8:09/2019 4.2.3 vocabulary") {
     CHECK(toText(Outcome::ConditionalFail) == "conditional-fail");
     CHECK(toText(Outcome::Fail) == "fail");
 }
+
+TEST_CASE("decision rules keep their stored values and carry the ILAC G8 names") {
+    // Stored values never change: the binary guarded rule is appended after the other two.
+    CHECK(static_cast<int>(DecisionRule::SimpleAcceptance) == 0);
+    CHECK(static_cast<int>(DecisionRule::GuardedAcceptance) == 1);
+    CHECK(static_cast<int>(DecisionRule::GuardedBinary) == 2);
+    CHECK(toText(DecisionRule::SimpleAcceptance) == "simple");
+    CHECK(toText(DecisionRule::GuardedAcceptance) == "guarded");
+    CHECK(toText(DecisionRule::GuardedBinary) == "guarded-binary");
+    // ILAC G8:09/2019 4.2.1 to 4.2.3 name the rules as binary statement for simple
+    // acceptance, binary statement with guard band, non-binary statement with guard band.
+    CHECK(displayName(DecisionRule::SimpleAcceptance) ==
+          "Binary statement for simple acceptance (ILAC G8:09/2019 4.2.1)");
+    CHECK(displayName(DecisionRule::GuardedBinary) ==
+          "Binary statement with guard band (ILAC G8:09/2019 4.2.2)");
+    CHECK(displayName(DecisionRule::GuardedAcceptance) ==
+          "Non-binary statement with guard band (ILAC G8:09/2019 4.2.3)");
+}
