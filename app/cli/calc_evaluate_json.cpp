@@ -142,7 +142,10 @@ QJsonArray omittedJson(const EvaluationResult& result) {
 } // namespace
 
 QJsonObject evaluationJson(const EvaluationResult& result, const EvaluateRequest& request) {
-    const EvaluationInput& input = request.input;
+    return evaluationJson(result, request.input);
+}
+
+QJsonObject evaluationJson(const EvaluationResult& result, const EvaluationInput& input) {
     QJsonObject out;
     QJsonObject range;
     range[QStringLiteral("lower")] = jsonNumber(input.range.lower);

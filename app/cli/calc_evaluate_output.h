@@ -10,6 +10,9 @@
 namespace mw::cli {
 
 QJsonObject evaluationJson(const EvaluationResult& result, const EvaluateRequest& request);
+// The same document for any evaluation of one range and phase (the session evaluator's too):
+// the keys of `calc evaluate --json`.
+QJsonObject evaluationJson(const EvaluationResult& result, const EvaluationInput& input);
 
 void printEvaluation(const EvaluationResult& result, const EvaluateRequest& request);
 

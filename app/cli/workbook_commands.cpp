@@ -4,6 +4,7 @@
 #include "app/cli/cli_support.h"
 #include "app/cli/command_table.h"
 #include "app/cli/demo_command.h"
+#include "app/cli/session_commands.h"
 #include "app/cli/workbook_access.h"
 #include "storage/record_digest.h"
 #include "storage/verification.h"
@@ -134,6 +135,7 @@ std::vector<Command> workbookCommands() {
         {QStringLiteral("upgrade"),
          QStringLiteral("upgrade a workbook of an earlier version in place (a copy is kept)"),
          runUpgrade},
+        sessionsCommand(),
         backupCommand(),
         restoreCommand(),
     };

@@ -93,8 +93,12 @@ std::string phaseWords(Phase phase) {
     return phase == Phase::AsFound ? "as-found" : "as-left";
 }
 
+// The caution for the largest voltage the session put on the terminals (AC ranges are judged
+// by their rms and peak, DC ones by the DC limit).
 std::optional<std::string> hazardOf(const Instrument& instrument, const CalibrationSession& s,
                                     const SealedInputs& inputs) {
+    double largestAc = 0.0;
+    double largestDc = 0.0;
     for (const Reading& reading : s.readings) {
         if (reading.unit != Unit::Volt) {
             continue;
@@ -108,11 +112,12 @@ std::optional<std::string> hazardOf(const Instrument& instrument, const Calibrat
                                            });
         const double value =
             std::max(std::fabs(reading.applied), std::fabs(reading.indicated.value_or(0.0)));
-        if (auto caution = hazardCaution(value, ac ? VoltageKind::AcRms : VoltageKind::Dc)) {
-            return caution;
-        }
+        (ac ? largestAc : largestDc) = std::max(ac ? largestAc : largestDc, value);
     }
-    return std::nullopt;
+    if (auto caution = hazardCaution(largestAc, VoltageKind::AcRms)) {
+        return caution;
+    }
+    return hazardCaution(largestDc, VoltageKind::Dc);
 }
 
 } // namespace
