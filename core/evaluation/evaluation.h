@@ -80,7 +80,7 @@ struct EvaluationInput {
 };
 
 struct PointResult {
-    int pointIndex = -1;  // the test-point index of its readings; -1 when grouped by value
+    int pointIndex = -1; // the test-point index of its readings; -1 when grouped by value
     double applied = 0.0;
     double indicated = 0.0; // mean indication in the direction with the larger error
     double error = 0.0;     // indicated − applied in that direction (nearest double)
