@@ -54,6 +54,8 @@ public:
 
     // Throws WorkbookError(ReadOnly) naming `what` when the workbook is read-only.
     void requireWritable(const QString& what) const;
+    // Refuses every further write, saying why (e.g. a full check found damage after opening).
+    void refuseWrites(const QString& reason) { readOnlyReason_ = reason; }
 
 private:
     friend class Transaction;

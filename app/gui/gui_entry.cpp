@@ -4,7 +4,6 @@
 #include "app/gui/main_window.h"
 
 #include <QApplication>
-#include <QMessageBox>
 
 #include <cstdio>
 #include <cstdlib>
@@ -52,13 +51,10 @@ int runGui(int argc, char* argv[]) {
     window.show();
     const QStringList arguments = QApplication::arguments();
     if (arguments.size() > 1) {
-        QString error;
-        if (!window.openWorkbook(arguments.at(1), &error)) {
-            std::fprintf(stderr, "meterwright: cannot open %s: %s\n", qPrintable(arguments.at(1)),
-                         qPrintable(error));
-            QMessageBox::warning(&window, QObject::tr("Cannot open workbook"),
-                                 QObject::tr("%1\n\nThe file was not changed.").arg(error));
-        }
+        // Asks who is working once the window is up; closes the workbook if nobody signs in.
+        QMetaObject::invokeMethod(
+            &window, [&window, path = arguments.at(1)] { window.openAndSignIn(path); },
+            Qt::QueuedConnection);
     }
     return QApplication::exec();
 }

@@ -1,45 +1,99 @@
-// The main window: menus, the instrument register with its detail, and the status bar.
+// The main window: menus, pages, the person signed in and the status bar.
 #include "app/gui/main_window.h"
 
 #include "app/gui/about_dialog.h"
-#include "app/gui/instrument_detail_panel.h"
+#include "app/gui/bench/bench_view.h"
+#include "app/gui/bench/session_chart_view.h"
+#include "app/gui/bench/session_setup_dialog.h"
 #include "app/gui/instrument_list_model.h"
-#include "app/gui/register_rows.h"
+#include "app/gui/register_page.h"
+#include "app/gui/sign_in_dialog.h"
+#include "app/gui/workspace.h"
 #include "storage/backup.h"
-#include "storage/instrument_repository.h"
-#include "storage/session_repository.h"
 #include "storage/workbook.h"
 #include "storage/workbook_error.h"
 
 #include <QAction>
+#include <QActionGroup>
+#include <QCloseEvent>
 #include <QDateTime>
 #include <QFileDialog>
 #include <QFileInfo>
-#include <QHeaderView>
 #include <QLabel>
 #include <QMenuBar>
 #include <QMessageBox>
-#include <QSplitter>
+#include <QProgressBar>
 #include <QStackedWidget>
 #include <QStatusBar>
-#include <QTableView>
-
-#include <chrono>
+#include <QToolBar>
 
 namespace mw::gui {
+namespace {
+
+const QString kWorkbookFilter =
+    QObject::tr("Meterwright workbooks (*.meterwright *.mwb);;All files (*)");
+
+} // namespace
 
 MainWindow::MainWindow(QWidget* parent)
-    : QMainWindow(parent) {
+    : QMainWindow(parent)
+    , workspace_(std::make_unique<Workspace>()) {
     setObjectName(QStringLiteral("mainWindow"));
     setWindowTitle(tr("Meterwright"));
     setWindowIcon(QIcon(QStringLiteral(":/icons/meterwright.svg")));
+    buildPages();
     buildMenus();
-    buildRegister();
+    buildStatusBar();
     statusBar()->showMessage(tr("No workbook open"));
-    resize(1180, 720);
+    resize(1280, 780);
+    connect(workspace_.get(), &Workspace::userChanged, this, &MainWindow::updateForPerson);
+    connect(workspace_.get(), &Workspace::backgroundMessage, this, &MainWindow::report);
+    connect(workspace_.get(), &Workspace::busyChanged, busy_, &QWidget::setVisible);
+    connect(workspace_->notifier(), &ChangeNotifier::editRefused, this,
+            [this](const QString& why) { report(tr("Not saved: %1").arg(why)); });
+    connect(workspace_->notifier(), &ChangeNotifier::sessionStateChanged, this,
+            [this] { reloadRegisterQuietly(); });
+    updateForPerson();
 }
 
-MainWindow::~MainWindow() = default;
+MainWindow::~MainWindow() {
+    // The pages use the workspace to their last moment (a cell being typed in is saved as the
+    // window goes), so they go first.
+    bench_->finishEditing();
+    delete pages_;
+}
+
+storage::Workbook* MainWindow::workbook() const {
+    return workspace_->workbook();
+}
+
+InstrumentListModel* MainWindow::instrumentModel() const {
+    return register_->model();
+}
+
+InstrumentDetailPanel* MainWindow::detailPanel() const {
+    return register_->detail();
+}
+
+void MainWindow::buildPages() {
+    pages_ = new QStackedWidget(this);
+    register_ = new RegisterPage(*workspace_, pages_);
+    bench_ = new BenchView(*workspace_, pages_);
+    pages_->addWidget(register_);
+    pages_->addWidget(bench_);
+    setCentralWidget(pages_);
+    connect(register_, &RegisterPage::startRequested, this, &MainWindow::askToStart);
+    connect(register_, &RegisterPage::openRequested, this, [this](qint64 sessionId) {
+        QString error;
+        if (!openCalibration(sessionId, &error)) {
+            QMessageBox::warning(this, tr("Cannot open the calibration"), error);
+        }
+    });
+    connect(register_, &RegisterPage::statusMessage, this, &MainWindow::report);
+    connect(bench_, &BenchView::statusMessage, this, &MainWindow::report);
+    connect(bench_, &BenchView::setupRequested, this, &MainWindow::askToChangeSetup);
+    connect(bench_, &BenchView::submitRequested, this, &MainWindow::askToSubmit);
+}
 
 void MainWindow::buildMenus() {
     QMenu* workbookMenu = menuBar()->addMenu(tr("&Workbook"));
@@ -49,116 +103,199 @@ void MainWindow::buildMenus() {
     QAction* backup = workbookMenu->addAction(tr("&Back up now…"));
     connect(backup, &QAction::triggered, this, &MainWindow::backUpNow);
     workbookMenu->addSeparator();
+    QAction* switchPerson = workbookMenu->addAction(tr("Sign in as another &person…"));
+    connect(switchPerson, &QAction::triggered, this, &MainWindow::promptSignIn);
+    signOutAction_ = workbookMenu->addAction(tr("Sign &out"));
+    connect(signOutAction_, &QAction::triggered, this, &MainWindow::signOut);
+    workbookMenu->addSeparator();
     QAction* quit = workbookMenu->addAction(tr("&Quit"));
     quit->setShortcut(QKeySequence::Quit);
     connect(quit, &QAction::triggered, this, &QWidget::close);
+
+    QMenu* editMenu = menuBar()->addMenu(tr("&Edit"));
+    QAction* undo = workspace_->undoStack()->createUndoAction(this, tr("&Undo"));
+    undo->setShortcut(QKeySequence::Undo);
+    QAction* redo = workspace_->undoStack()->createRedoAction(this, tr("&Redo"));
+    redo->setShortcuts({QKeySequence(Qt::CTRL | Qt::SHIFT | Qt::Key_Z), QKeySequence::Redo});
+    editMenu->addAction(undo);
+    editMenu->addAction(redo);
+
+    QMenu* calibrationMenu = menuBar()->addMenu(tr("&Calibration"));
+    startAction_ = calibrationMenu->addAction(tr("&Start calibration of the selected meter…"));
+    connect(startAction_, &QAction::triggered, this, [this] {
+        if (const auto id = register_->selectedInstrument()) {
+            askToStart(*id);
+        }
+    });
+    QAction* setup = calibrationMenu->addAction(tr("Set-&up…"));
+    connect(setup, &QAction::triggered, this, &MainWindow::askToChangeSetup);
+    QAction* submit = calibrationMenu->addAction(tr("Su&bmit for review…"));
+    connect(submit, &QAction::triggered, this, &MainWindow::askToSubmit);
+    QAction* exportChart = calibrationMenu->addAction(tr("&Export chart…"));
+    connect(exportChart, &QAction::triggered, this, &MainWindow::exportChart);
+
+    QToolBar* pagesBar = addToolBar(tr("Pages"));
+    pagesBar->setObjectName(QStringLiteral("pagesBar"));
+    pagesBar->setMovable(false);
+    auto* group = new QActionGroup(this);
+    registerAction_ = pagesBar->addAction(tr("Register"));
+    benchAction_ = pagesBar->addAction(tr("Bench"));
+    for (QAction* action : {registerAction_, benchAction_}) {
+        action->setCheckable(true);
+        group->addAction(action);
+    }
+    registerAction_->setChecked(true);
+    connect(registerAction_, &QAction::triggered, this, &MainWindow::showRegister);
+    connect(benchAction_, &QAction::triggered, this, &MainWindow::showBench);
 
     QMenu* helpMenu = menuBar()->addMenu(tr("&Help"));
     QAction* about = helpMenu->addAction(tr("&About Meterwright"));
     connect(about, &QAction::triggered, this, &MainWindow::showAbout);
 }
 
-void MainWindow::buildRegister() {
-    registerStack_ = new QStackedWidget(this);
-    registerStack_->setObjectName(QStringLiteral("registerStack"));
+void MainWindow::buildStatusBar() {
+    busy_ = new QProgressBar(this);
+    busy_->setRange(0, 0); // busy, no percentage
+    busy_->setMaximumWidth(90);
+    busy_->setToolTip(tr("Checking or backing up the workbook in the background"));
+    busy_->hide();
+    person_ = new QLabel(this);
+    person_->setObjectName(QStringLiteral("signedInPerson"));
+    statusBar()->addPermanentWidget(busy_);
+    statusBar()->addPermanentWidget(person_);
+}
 
-    auto* splitter = new QSplitter(Qt::Horizontal, registerStack_);
-    instrumentModel_ = new InstrumentListModel(this);
-    instrumentView_ = new QTableView(splitter);
-    instrumentView_->setObjectName(QStringLiteral("instrumentList"));
-    instrumentView_->setModel(instrumentModel_);
-    instrumentView_->setSelectionBehavior(QAbstractItemView::SelectRows);
-    instrumentView_->setSelectionMode(QAbstractItemView::SingleSelection);
-    instrumentView_->horizontalHeader()->setSectionResizeMode(QHeaderView::ResizeToContents);
-    instrumentView_->horizontalHeader()->setSectionResizeMode(InstrumentListModel::Description,
-                                                              QHeaderView::Stretch);
-    instrumentView_->horizontalHeader()->setSectionResizeMode(InstrumentListModel::Kind,
-                                                              QHeaderView::Interactive);
-    instrumentView_->horizontalHeader()->resizeSection(InstrumentListModel::Kind, 150);
-    instrumentView_->verticalHeader()->hide();
-    instrumentView_->verticalHeader()->setDefaultSectionSize(fontMetrics().height() + 8);
-    instrumentView_->setWordWrap(false);
-    instrumentView_->setTextElideMode(Qt::ElideRight);
-    detailPanel_ = new InstrumentDetailPanel(splitter);
-    splitter->addWidget(instrumentView_);
-    splitter->addWidget(detailPanel_);
-    splitter->setStretchFactor(0, 3);
-    splitter->setStretchFactor(1, 2);
-    splitter->setSizes({800, 380});
+void MainWindow::updateForPerson() {
+    const auto& user = workspace_->user();
+    person_->setText(user ? tr("Signed in: %1 (%2)")
+                                .arg(QString::fromStdString(user->full_name),
+                                     QString::fromUtf8(displayName(user->role).data()))
+                     : workspace_->isOpen() ? tr("Nobody signed in")
+                                            : QString());
+    signOutAction_->setEnabled(user.has_value());
+    startAction_->setEnabled(workspace_->can(Capability::Calibrate));
+    reloadRegisterQuietly();
+    if (bench_->sessionId()) {
+        // The bench follows the person: read-only for someone who may not calibrate.
+        QString error;
+        openCalibration(*bench_->sessionId(), &error);
+    }
+}
 
-    emptyStateLabel_ = new QLabel(
-        tr("<p><b>No instruments to show.</b></p>"
-           "<p>Open a workbook (Workbook → Open…) to see its register of instruments.</p>"),
-        registerStack_);
-    emptyStateLabel_->setObjectName(QStringLiteral("emptyState"));
-    emptyStateLabel_->setAlignment(Qt::AlignCenter);
-
-    registerStack_->addWidget(splitter);
-    registerStack_->addWidget(emptyStateLabel_);
-    setCentralWidget(registerStack_);
-
-    connect(instrumentModel_, &QAbstractItemModel::modelReset, this, &MainWindow::updateEmptyState);
-    connect(instrumentView_->selectionModel(), &QItemSelectionModel::currentRowChanged, this,
-            &MainWindow::showSelectedInstrument);
-    updateEmptyState();
+void MainWindow::report(const QString& text) {
+    statusBar()->showMessage(text, 15000);
 }
 
 bool MainWindow::openWorkbook(const QString& path, QString* error) {
-    std::unique_ptr<storage::Workbook> previous = std::move(workbook_);
     try {
-        workbook_ = std::make_unique<storage::Workbook>(path);
-        reloadRegister(); // reads every row the register shows: a value it cannot read fails here
+        workspace_->open(path);
+        register_->reload(); // reads every row the register shows: bad values fail here
     } catch (const std::exception& failure) {
-        // The file stays as it was; the workbook open before stays open.
-        workbook_ = std::move(previous);
+        workspace_->close();
         reloadRegisterQuietly();
         if (error != nullptr) {
             *error = QString::fromUtf8(failure.what());
         }
         return false;
     }
+    bench_->closeSession();
+    showRegister();
     setWindowTitle(tr("%1 — Meterwright").arg(QFileInfo(path).fileName()));
-    const QString backupNote = takeAutomaticBackup();
     QString status = tr("Workbook %1: %2 instruments")
                          .arg(QFileInfo(path).fileName())
-                         .arg(instrumentModel_->rowCount());
+                         .arg(register_->model()->rowCount());
     statusBar()->setToolTip(QFileInfo(path).absoluteFilePath());
-    if (workbook_->isReadOnly()) {
-        status += tr(" — read-only (%1)").arg(workbook_->readOnlyReason());
+    if (workspace_->workbook()->isReadOnly()) {
+        status += tr(" — read-only (%1)").arg(workspace_->workbook()->readOnlyReason());
     }
-    if (!backupNote.isEmpty()) {
-        status += QStringLiteral(" — ") + backupNote;
+    if (!workspace_->workbook()->upgradeBackupPath().isEmpty()) {
+        status += tr(" — upgraded from an earlier version; the file as it was is kept as %1")
+                      .arg(QFileInfo(workspace_->workbook()->upgradeBackupPath()).fileName());
     }
     statusBar()->showMessage(status);
+    workspace_->startAutomaticBackup();
+    updateForPerson();
     return true;
 }
 
-QString MainWindow::takeAutomaticBackup() {
-    // A daily rolling set beside the workbook; a failed backup is reported, never fatal, and
-    // never touches the workbook itself.
-    if (workbook_->isReadOnly()) {
-        return {};
+bool MainWindow::openAndSignIn(const QString& path) {
+    QString error;
+    if (!openWorkbook(path, &error)) {
+        QMessageBox::warning(this, tr("Cannot open workbook"),
+                             tr("%1\n\nThe file was not changed.").arg(error));
+        return false;
     }
+    promptSignIn();
+    if (!workspace_->user()) {
+        workspace_->close();
+        reloadRegisterQuietly();
+        setWindowTitle(tr("Meterwright"));
+        statusBar()->showMessage(tr("Nobody signed in, so the workbook was closed."));
+        return false;
+    }
+    return true;
+}
+
+bool MainWindow::signIn(const QString& login, const QString& password) {
+    return workspace_->signIn(login, password);
+}
+
+void MainWindow::promptSignIn() {
+    if (!workspace_->isOpen()) {
+        report(tr("Open a workbook first."));
+        return;
+    }
+    SignInDialog dialog(*workspace_, throttle_, this);
+    dialog.exec();
+}
+
+void MainWindow::signOut() {
+    bench_->finishEditing();
+    workspace_->signOut();
+    bench_->closeSession();
+    showRegister();
+    report(tr("Signed out. Workbook → Sign in as another person… to go on."));
+}
+
+void MainWindow::reloadRegisterQuietly() {
     try {
-        const auto written =
-            storage::backupIfDue(*workbook_, storage::BackupPolicy{}, QDateTime::currentDateTime());
-        return written ? tr("automatic backup written (%1)").arg(QFileInfo(*written).fileName())
-                       : QString();
+        register_->reload();
     } catch (const std::exception& failure) {
-        return tr("automatic backup failed: %1").arg(QString::fromUtf8(failure.what()));
+        workspace_->close();
+        register_->reload();
+        statusBar()->showMessage(
+            tr("The workbook was closed: it could not be read (%1)").arg(failure.what()));
+    }
+}
+
+void MainWindow::showRegister() {
+    pages_->setCurrentWidget(register_);
+    registerAction_->setChecked(true);
+}
+
+void MainWindow::showBench() {
+    pages_->setCurrentWidget(bench_);
+    benchAction_->setChecked(true);
+}
+
+void MainWindow::chooseWorkbook() {
+    const QString path =
+        QFileDialog::getOpenFileName(this, tr("Open workbook"), QString(), kWorkbookFilter);
+    if (!path.isEmpty()) {
+        openAndSignIn(path);
     }
 }
 
 void MainWindow::backUpNow() {
-    if (!workbook_) {
+    if (!workspace_->isOpen()) {
         QMessageBox::information(this, tr("Back up workbook"), tr("Open a workbook first."));
         return;
     }
     const QString target = QFileDialog::getSaveFileName(
         this, tr("Back up workbook to"),
-        workbook_->path() +
-            QDateTime::currentDateTime().toString(QStringLiteral("'.backup-'yyyyMMdd-HHmm'.mwb'")),
-        tr("Meterwright workbooks (*.mwb)"), nullptr, QFileDialog::DontConfirmOverwrite);
+        workspace_->workbook()->path() + QDateTime::currentDateTime().toString(QStringLiteral(
+                                             "'.backup-'yyyyMMdd-HHmm'.meterwright'")),
+        kWorkbookFilter, nullptr, QFileDialog::DontConfirmOverwrite);
     if (target.isEmpty()) {
         return;
     }
@@ -171,82 +308,40 @@ void MainWindow::backUpNow() {
         return;
     }
     try {
-        storage::backupWorkbook(*workbook_, target);
-        statusBar()->showMessage(tr("Backup written to %1").arg(target));
+        storage::backupWorkbook(*workspace_->workbook(), target);
+        report(tr("Backup written to %1").arg(target));
     } catch (const std::exception& failure) {
         QMessageBox::warning(this, tr("Backup failed"), QString::fromUtf8(failure.what()));
     }
 }
 
-void MainWindow::chooseWorkbook() {
-    const QString path = QFileDialog::getOpenFileName(
-        this, tr("Open workbook"), QString(), tr("Meterwright workbooks (*.mwb);;All files (*)"));
+void MainWindow::showAbout() {
+    AboutDialog dialog(this);
+    dialog.exec();
+}
+
+void MainWindow::exportChart() {
+    if (!bench_->sessionId()) {
+        report(tr("Open a calibration on the bench first."));
+        return;
+    }
+    const QString path = QFileDialog::getSaveFileName(
+        this, tr("Export chart"), QString(), tr("PNG picture (*.png);;SVG drawing (*.svg)"));
     if (path.isEmpty()) {
         return;
     }
     QString error;
-    if (!openWorkbook(path, &error)) {
-        QMessageBox::warning(this, tr("Cannot open workbook"),
-                             tr("%1\n\nThe file was not changed.").arg(error));
+    if (bench_->chart()->exportTo(path, &error)) {
+        report(tr("Chart written to %1").arg(path));
+    } else {
+        QMessageBox::warning(this, tr("Chart not written"), error);
     }
 }
 
-void MainWindow::reloadRegister() {
-    if (!workbook_) {
-        instrumentModel_->setRows({});
-        return;
-    }
-    const storage::InstrumentRepository instruments(*workbook_);
-    const auto today = std::chrono::floor<std::chrono::days>(std::chrono::system_clock::now());
-    OpenCalibrations open;
-    const storage::SessionRepository sessions(*workbook_);
-    for (const SessionState state :
-         {SessionState::Draft, SessionState::Returned, SessionState::Submitted}) {
-        for (const CalibrationSession& session : sessions.withState(state)) {
-            open[session.instrument_id] = state;
-        }
-    }
-    instrumentModel_->setRows(
-        buildRegisterRows(instruments.all(), instruments.dueList(), open, today));
-    detailPanel_->showInstrument(std::nullopt);
-    if (instrumentModel_->rowCount() > 0) {
-        instrumentView_->setCurrentIndex(instrumentModel_->index(0, 0));
-    }
-}
-
-void MainWindow::reloadRegisterQuietly() {
-    try {
-        reloadRegister();
-    } catch (const std::exception& failure) {
-        workbook_.reset();
-        instrumentModel_->setRows({});
-        statusBar()->showMessage(
-            tr("The workbook was closed: it could not be read (%1)").arg(failure.what()));
-    }
-}
-
-void MainWindow::showSelectedInstrument() {
-    const QModelIndex current = instrumentView_->currentIndex();
-    if (!workbook_ || !current.isValid()) {
-        detailPanel_->showInstrument(std::nullopt);
-        return;
-    }
-    const auto id = instrumentModel_->rowAt(current.row()).instrumentId;
-    try {
-        detailPanel_->showInstrument(storage::InstrumentRepository(*workbook_).find(id));
-    } catch (const std::exception& failure) {
-        detailPanel_->showInstrument(std::nullopt);
-        statusBar()->showMessage(tr("This instrument could not be read: %1").arg(failure.what()));
-    }
-}
-
-void MainWindow::updateEmptyState() {
-    registerStack_->setCurrentIndex(instrumentModel_->rowCount() == 0 ? 1 : 0);
-}
-
-void MainWindow::showAbout() {
-    AboutDialog dialog(this);
-    dialog.exec();
+void MainWindow::closeEvent(QCloseEvent* event) {
+    bench_->finishEditing();
+    workspace_->waitForBackgroundWork();
+    event->accept();
 }
 
 } // namespace mw::gui

@@ -1,13 +1,19 @@
-// The main window: menu bar, the instrument register with its detail, and a status bar.
+// The main window: menus, the pages (register, bench), the person signed in and what the
+// workbook is doing in the background, always visible in the status bar. It owns the workspace
+// (the open workbook, the person, the undo stack) and hands it to the pages.
 #pragma once
+
+#include "app/gui/sign_in_throttle.h"
 
 #include <QMainWindow>
 
 #include <memory>
+#include <optional>
 
+class QAction;
 class QLabel;
+class QProgressBar;
 class QStackedWidget;
-class QTableView;
 
 namespace mw::storage {
 class Workbook;
@@ -15,8 +21,12 @@ class Workbook;
 
 namespace mw::gui {
 
+class BenchView;
 class InstrumentDetailPanel;
 class InstrumentListModel;
+class RegisterPage;
+class Workspace;
+struct SessionSetup;
 
 class MainWindow : public QMainWindow {
     Q_OBJECT
@@ -24,36 +34,61 @@ public:
     explicit MainWindow(QWidget* parent = nullptr);
     ~MainWindow() override;
 
-    InstrumentListModel* instrumentModel() const { return instrumentModel_; }
-    InstrumentDetailPanel* detailPanel() const { return detailPanel_; }
-    storage::Workbook* workbook() const { return workbook_.get(); }
+    Workspace& workspace() { return *workspace_; }
+    storage::Workbook* workbook() const;
+    RegisterPage* registerPage() const { return register_; }
+    BenchView* bench() const { return bench_; }
+    InstrumentListModel* instrumentModel() const;
+    InstrumentDetailPanel* detailPanel() const;
+    QLabel* personLabel() const { return person_; }
 
-    // Opens the workbook at `path` and shows its register. On failure the previous workbook
-    // stays open, nothing is changed on disk, and `error` says why.
+    // Opens the workbook at `path` and shows its register (nobody signed in yet). On failure
+    // the previous workbook stays open, nothing is changed on disk, and `error` says why.
     bool openWorkbook(const QString& path, QString* error);
+    // Opens and asks who is working; closes the workbook again when nobody signs in.
+    bool openAndSignIn(const QString& path);
+    // Signs in without the dialog (tests, scripted use); false for a wrong login or password.
+    bool signIn(const QString& login, const QString& password);
+
+    // Starts a calibration of `instrumentId` as set up and shows it on the bench.
+    bool startCalibration(std::int64_t instrumentId, const SessionSetup& setup, QString* error);
+    bool openCalibration(std::int64_t sessionId, QString* error);
+    void showRegister();
+    void showBench();
 
 public slots:
     void showAbout();
     void chooseWorkbook();
     void backUpNow();
+    void promptSignIn();
+    void signOut();
+
+protected:
+    void closeEvent(QCloseEvent* event) override;
 
 private:
     void buildMenus();
-    // Writes the daily automatic backup if one is due; returns what to tell the user.
-    QString takeAutomaticBackup();
-    void buildRegister();
-    // Throws what the workbook throws; reloadRegisterQuietly() closes the workbook instead.
-    void reloadRegister();
+    void buildPages();
+    void buildStatusBar();
+    void updateForPerson();
     void reloadRegisterQuietly();
-    void showSelectedInstrument();
-    void updateEmptyState();
+    void askToStart(qint64 instrumentId);
+    void askToChangeSetup();
+    void askToSubmit();
+    void exportChart();
+    void report(const QString& text);
 
-    std::unique_ptr<storage::Workbook> workbook_;
-    InstrumentListModel* instrumentModel_ = nullptr;
-    QTableView* instrumentView_ = nullptr;
-    InstrumentDetailPanel* detailPanel_ = nullptr;
-    QStackedWidget* registerStack_ = nullptr;
-    QLabel* emptyStateLabel_ = nullptr;
+    std::unique_ptr<Workspace> workspace_;
+    SignInThrottle throttle_;
+    QStackedWidget* pages_ = nullptr;
+    RegisterPage* register_ = nullptr;
+    BenchView* bench_ = nullptr;
+    QAction* registerAction_ = nullptr;
+    QAction* benchAction_ = nullptr;
+    QAction* startAction_ = nullptr;
+    QAction* signOutAction_ = nullptr;
+    QLabel* person_ = nullptr;
+    QProgressBar* busy_ = nullptr;
 };
 
 } // namespace mw::gui

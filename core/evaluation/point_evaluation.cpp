@@ -152,6 +152,7 @@ std::vector<UncertaintyComponent> typeBComponents(const EvaluationInput& input, 
 EvaluatedPoint evaluatePoint(const EvaluationInput& input, const PointGroup& group, double fiducial,
                              const ExactDecimal& limit, double referenceRangeValue) {
     PointResult point;
+    point.pointIndex = group.point;
     const auto count = static_cast<std::int64_t>(group.applied.size());
     point.applied = ExactMean{group.appliedSum, count}.toDouble();
     point.readingCount = static_cast<int>(count);

@@ -4,6 +4,7 @@
 #include "core/advice/rectifier_curve.h"
 #include "core/circuits/coil_temperature.h"
 #include "core/circuits/hazard.h"
+#include "core/circuits/rectifier_design.h"
 #include "core/circuits/rectifier_meter.h"
 #include "core/plan/session_plan.h"
 
@@ -63,12 +64,14 @@ std::optional<CoilCircuit> coilOf(const Instrument& instrument, const RangeSpec&
     return coil;
 }
 
-// The diode curve a rectifier range's circuit predicts, when its model is recorded and it can
-// be computed at every applied value; otherwise none (the advice then goes without it).
+// The diode curve a rectifier range's circuit predicts once its span is set at full scale (the
+// multiplier solved with the diodes' model, as an adjusted meter has it), so the curve shows the
+// low-scale loss the diodes cause; none when the model is not recorded or has no answer at
+// every applied value (the advice then goes without it).
 std::function<double(double)> predictedCurve(const Instrument& instrument, const RangeSpec& range,
                                              const RangeAsUsed& used, double celsius,
                                              const std::vector<EvaluationReading>& readings) {
-    if (used.signal == SignalType::Dc || !used.diode || !used.resistor_ohms) {
+    if (used.signal == SignalType::Dc || !used.diode) {
         return {};
     }
     try {
@@ -77,9 +80,10 @@ std::function<double(double)> predictedCurve(const Instrument& instrument, const
             used.signal == SignalType::HalfWave ? Rectifier::HalfWave : Rectifier::Bridge;
         circuit.movement_amps_fs = instrument.movement.amps_fs;
         circuit.movement_ohms = instrument.movement.ohms_coil;
-        circuit.multiplier_ohms = *used.resistor_ohms;
-        const RectifierMeter meter(circuit, *used.diode, celsius);
-        auto curve = predictedRectifierError(meter, range.full_scale);
+        const double top = std::max(std::fabs(range.lower_limit), std::fabs(range.full_scale));
+        const RectifierMeter model(circuit, *used.diode, celsius);
+        const MultiplierSolution solution = solveMultiplier(model, top, WaveShape::Sine);
+        auto curve = predictedRectifierError(model.withMultiplier(solution.multiplier_ohms), top);
         for (const EvaluationReading& reading : readings) {
             curve(reading.applied); // throws where the model has no answer
         }
@@ -205,7 +209,15 @@ EvaluationInput evaluationInputFor(const Instrument& instrument, const RangeSpec
     if (used->reference) {
         const ReferenceChoice choice{*used->reference, used->reference_shunt};
         const std::vector<StandardSpecCopy> specs = inputs.specs;
-        describeChoice(choice, specs); // refuses a choice naming a copy the session lacks
+        // Named on the record by its range and certificate (refuses a choice naming a copy the
+        // session does not hold).
+        input.referenceIdentity = describeChoice(choice, specs);
+        for (const StandardUse& use : session.standards) {
+            if (use.standard_id == choice.reference.standard_id &&
+                !use.certificate_number.empty()) {
+                input.referenceIdentity += " (certificate " + use.certificate_number + ")";
+            }
+        }
         input.referenceComponents = [choice, specs](double applied) {
             return referenceComponents(choice, specs, applied);
         };

@@ -5,6 +5,7 @@
 #include "app/gui/instrument_list_model.h"
 #include "app/gui/main_window.h"
 #include "app/gui/safety_notice.h"
+#include "app/gui/workspace.h"
 #include "storage/backup.h"
 #include "storage/instrument_repository.h"
 #include "storage/workbook.h"
@@ -12,6 +13,7 @@
 #include <catch2/catch.hpp>
 
 #include <QAbstractItemModelTester>
+#include <QCoreApplication>
 #include <QFile>
 #include <QLabel>
 #include <QMenuBar>
@@ -135,7 +137,10 @@ TEST_CASE("opening a workbook fills the register and selecting a row shows the d
         window.detailPanel()->fieldText(QStringLiteral("movement")).contains(QStringLiteral("mA")));
     CHECK(window.statusBar()->currentMessage().contains(QStringLiteral("1 instruments")));
 
-    // Opening a writable workbook keeps the daily rolling backup beside it.
+    // Opening a writable workbook keeps the daily rolling backup beside it, written in the
+    // background on a connection of its own while the window is already up.
+    window.workspace().waitForBackgroundWork();
+    QCoreApplication::processEvents();
     CHECK(window.statusBar()->currentMessage().contains(QStringLiteral("automatic backup")));
     CHECK(mw::storage::automaticBackups(path, mw::storage::BackupPolicy{}).size() == 1);
 }

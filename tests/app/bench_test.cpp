@@ -1,0 +1,257 @@
+// The bench driven as a technician drives it, offscreen, through key events only: sign in,
+// start a calibration of a demo meter, type the as-found readings cell to cell, adjust, type the
+// as-left readings, submit. The workbook is then read back and everything the screen showed is
+// compared with the session evaluator on the same inputs. Invented demo data throughout.
+#include "app/gui/bench/bench_view.h"
+#include "app/gui/bench/reading_grid_model.h"
+#include "app/gui/bench/reading_grid_view.h"
+#include "app/gui/bench/session_setup_dialog.h"
+#include "app/gui/bench/work_panels.h"
+#include "app/gui/gui_entry.h"
+#include "app/gui/main_window.h"
+#include "app/gui/register_page.h"
+#include "app/gui/workspace.h"
+#include "core/evaluation/session_evaluation.h"
+#include "storage/demo/demo_workbook.h"
+#include "storage/instrument_repository.h"
+#include "storage/session_repository.h"
+#include "storage/standard_repository.h"
+#include "tests/support/keyboard.h"
+
+#include <catch2/catch.hpp>
+
+#include <QAbstractItemModelTester>
+#include <QApplication>
+#include <QClipboard>
+#include <QLabel>
+#include <QListWidget>
+#include <QPushButton>
+#include <QTemporaryDir>
+#include <QUndoStack>
+
+using mw::gui::MainWindow;
+using mw::gui::ReadingGridModel;
+
+namespace {
+
+// The demo counts its due dates from the day it is written: today, as the bench works now.
+const auto kToday = std::chrono::floor<std::chrono::days>(std::chrono::system_clock::now());
+
+struct Bench {
+    QTemporaryDir dir;
+    QString path = dir.filePath(QStringLiteral("demo.meterwright"));
+    MainWindow window;
+
+    explicit Bench(const char* login = "tess", const char* password = "demo-tech") {
+        mw::gui::initResources();
+        mw::demo::writeDemoWorkbook(path, kToday);
+        window.resize(1280, 780);
+        window.show();
+        QApplication::setActiveWindow(&window);
+        QString error;
+        REQUIRE(window.openWorkbook(path, &error));
+        REQUIRE(window.signIn(QLatin1String(login), QLatin1String(password)));
+        window.workspace().waitForBackgroundWork();
+    }
+    mw::storage::Workbook& workbook() { return *window.workbook(); }
+    mw::Instrument instrument(const char* tag) {
+        return *mw::storage::InstrumentRepository(workbook()).findByTag(QLatin1String(tag));
+    }
+    // Starts a calibration of `tag` as the set-up dialog would make it.
+    void start(const char* tag, mw::PhasePlan phases, mw::DecisionRule rule, double r = 0.0) {
+        const mw::Instrument meter = instrument(tag);
+        mw::gui::SessionSetup setup;
+        for (const mw::RangeSpec& range : meter.ranges) {
+            setup.ranges.push_back(range.id);
+        }
+        setup.phases = phases;
+        const auto calibrator =
+            mw::storage::StandardRepository(workbook()).findByTag(QStringLiteral("CFS-01"));
+        setup.standards = {{calibrator->id, "", {}, ""}};
+        setup.environment = {22.8, 41.0};
+        setup.rule = rule;
+        setup.guardFactor = r;
+        setup.method = "Calibrator in series; indication read against the applied value.";
+        QString error;
+        REQUIRE(window.startCalibration(meter.id, setup, &error));
+    }
+    mw::gui::ReadingGridView* grid() { return window.bench()->grid(); }
+    ReadingGridModel* model() { return window.bench()->gridModel(); }
+    std::int64_t session() { return *window.bench()->sessionId(); }
+    mw::CalibrationSession stored() {
+        return *mw::storage::SessionRepository(workbook()).find(session());
+    }
+    // Types an indication into every row of the shown range and phase, going down with Enter:
+    // `errorOf(applied)` is how far the meter reads off.
+    template <typename Error>
+    void typeColumn(Error errorOf) {
+        grid()->setCurrentIndex(model()->index(0, ReadingGridModel::Indicated));
+        for (int row = 0; row < model()->rowCount(); ++row) {
+            REQUIRE(grid()->currentIndex().row() == row); // Enter moved down
+            const double applied = model()
+                                       ->index(row, ReadingGridModel::Applied)
+                                       .data(ReadingGridModel::ValueRole)
+                                       .toDouble();
+            mwtest::typeInto(grid(), QString::number(applied + errorOf(applied), 'g', 6));
+        }
+    }
+};
+
+} // namespace
+
+TEST_CASE("a technician types a full calibration with the keyboard and submits it") {
+    Bench bench;
+    bench.start("CFM-101", mw::PhasePlan::AsFoundAndAsLeft, mw::DecisionRule::SimpleAcceptance);
+    QAbstractItemModelTester tester(bench.model(),
+                                    QAbstractItemModelTester::FailureReportingMode::Fatal);
+    // 0-15 V class 1.5: the limit is ±0.225 V (IEC 60051-1). As found the meter reads 2 % high
+    // (0.3 V at full scale: out of tolerance), so it is adjusted.
+    REQUIRE(bench.model()->rowCount() == 12); // six marks up, six down
+    bench.typeColumn([](double applied) { return 0.02 * applied; });
+    CHECK(bench.window.bench()->overallText().contains(QStringLiteral("Fail")));
+    QString message;
+    REQUIRE(bench.window.bench()->notes()->addNote(QStringLiteral("Span reset with the magnetic "
+                                                                  "shunt."),
+                                                   &message));
+    bench.window.bench()->showRange(bench.model()->rangeId(), mw::Phase::AsLeft);
+    bench.typeColumn([](double applied) { return 0.002 * applied; });
+    CHECK(bench.window.bench()->overallText().contains(QStringLiteral("Pass")));
+
+    // What is saved is what was typed, and the screen shows the evaluator's results.
+    const mw::CalibrationSession stored = bench.stored();
+    REQUIRE(stored.readings.size() == 24);
+    for (const mw::Reading& reading : stored.readings) {
+        const double factor = reading.phase == mw::Phase::AsFound ? 0.02 : 0.002;
+        CHECK(*reading.indicated == Approx(reading.applied * (1.0 + factor)).epsilon(1e-9));
+    }
+    const mw::Instrument meter = bench.instrument("CFM-101");
+    const mw::SessionEvaluation evaluation = mw::evaluateSession(
+        meter, stored,
+        mw::sealInputs(meter, stored, mw::storage::StandardRepository(bench.workbook()).all()));
+    REQUIRE(evaluation.overall == mw::Outcome::Pass);
+    REQUIRE(evaluation.asFound == mw::Outcome::Fail);
+    const mw::EvaluationResult& asLeft = *evaluation.ranges.back().result;
+    for (int row = 0; row < bench.model()->rowCount(); ++row) {
+        const mw::ReadingKey key = bench.model()->keyAt(row);
+        for (const mw::PointResult& point : asLeft.points) {
+            if (point.pointIndex == key.point_index) {
+                CHECK(bench.model()
+                          ->index(row, ReadingGridModel::Uncertainty)
+                          .data(ReadingGridModel::ValueRole)
+                          .toDouble() == point.budget.expandedRounded);
+                CHECK(bench.model()
+                          ->index(row, ReadingGridModel::Decision)
+                          .data(ReadingGridModel::OutcomeRole)
+                          .toInt() == int(point.decision));
+            }
+        }
+    }
+    const bool submitted = bench.window.bench()->submit(&message);
+    INFO(message.toStdString());
+    REQUIRE(submitted);
+    CHECK(message.contains(QStringLiteral("Outcome: Pass")));
+    CHECK(bench.stored().state == mw::SessionState::Submitted);
+    CHECK(bench.stored().outcome == mw::Outcome::Pass);
+    // Submitted work is no longer edited on the bench.
+    CHECK_FALSE(bench.model()->flags(bench.model()->index(0, ReadingGridModel::Indicated)) &
+                Qt::ItemIsEditable);
+}
+
+TEST_CASE("an entry that does not parse stays in its cell, marked, and nothing is saved") {
+    Bench bench;
+    bench.start("CFM-101", mw::PhasePlan::AsFound, mw::DecisionRule::SimpleAcceptance);
+    const std::size_t before = bench.stored().readings.size();
+    bench.grid()->setCurrentIndex(bench.model()->index(2, ReadingGridModel::Indicated));
+    mwtest::typeInto(bench.grid(), QStringLiteral("6..1"));
+    const QModelIndex cell = bench.model()->index(2, ReadingGridModel::Indicated);
+    CHECK(cell.data(ReadingGridModel::RejectedRole).toBool());
+    CHECK(cell.data().toString() == QStringLiteral("6..1"));
+    CHECK(cell.data(Qt::ToolTipRole).toString().contains(QStringLiteral("Not saved")));
+    CHECK_FALSE(cell.data(Qt::DecorationRole).isNull()); // a shape, not a colour alone
+    CHECK(bench.stored().readings.size() == before);
+    // A wrong unit is refused the same way; the lab's decimal comma is accepted when set.
+    bench.grid()->setCurrentIndex(cell);
+    mwtest::typeInto(bench.grid(), QStringLiteral("6 mA"));
+    CHECK(cell.data(ReadingGridModel::RejectedRole).toBool());
+    bench.model()->setDecimalComma(true);
+    bench.grid()->setCurrentIndex(cell);
+    mwtest::typeInto(bench.grid(), QStringLiteral("6,04"));
+    CHECK_FALSE(cell.data(ReadingGridModel::RejectedRole).toBool());
+    CHECK(*bench.stored().readings.back().indicated == Approx(6.04).epsilon(1e-12));
+}
+
+TEST_CASE("every edit is undone and redone, a pasted column as one step") {
+    Bench bench;
+    bench.start("CFM-201", mw::PhasePlan::AsFound, mw::DecisionRule::SimpleAcceptance);
+    QUndoStack* undo = bench.window.workspace().undoStack();
+    // A bare number is in the range's unit: 0-1 A, so "0.402" is 0.402 A.
+    QApplication::clipboard()->setText(
+        QStringLiteral("0.001\n0.2015\r\n0.402\t(ignored)\n0.603\n"));
+    bench.grid()->setCurrentIndex(bench.model()->index(0, ReadingGridModel::Indicated));
+    QTest::keyClick(bench.grid(), Qt::Key_V, Qt::ControlModifier);
+    REQUIRE(bench.stored().readings.size() == 4);
+    CHECK(undo->count() == 1); // one step for the whole paste
+    CHECK(*bench.stored().readings[2].indicated == Approx(0.402).epsilon(1e-12));
+    mwtest::typeInto(bench.grid(), QStringLiteral("0.5"));
+    const auto typed = bench.stored().readings;
+    undo->undo();
+    undo->undo();
+    CHECK(bench.stored().readings.empty());
+    CHECK(bench.model()->index(0, ReadingGridModel::Indicated).data().toString().isEmpty());
+    undo->redo();
+    undo->redo();
+    CHECK(bench.stored().readings == typed);
+    // A point removed with its readings comes back with them.
+    QString message;
+    bench.grid()->setCurrentIndex(bench.model()->index(1, ReadingGridModel::Indicated));
+    REQUIRE(bench.window.bench()->removeCurrentPoint(&message));
+    CHECK(bench.stored().readings.size() == typed.size() - 1);
+    undo->undo();
+    CHECK(bench.stored().readings == typed);
+}
+
+TEST_CASE("submit names the readings still missing and the workbook's refusals") {
+    Bench bench;
+    bench.start("CFM-103", mw::PhasePlan::AsFound, mw::DecisionRule::GuardedAcceptance, 1.0);
+    bench.grid()->setCurrentIndex(bench.model()->index(0, ReadingGridModel::Indicated));
+    mwtest::typeInto(bench.grid(), QStringLiteral("0.004"));
+    QString message;
+    CHECK_FALSE(bench.window.bench()->submit(&message));
+    CHECK(message.contains(QStringLiteral("Not submitted")));
+    CHECK(message.contains(QStringLiteral("not taken yet")));
+    CHECK(message.contains(QStringLiteral("10 V: point 2")));
+    CHECK(bench.stored().state == mw::SessionState::Draft);
+}
+
+TEST_CASE("a hazardous test value raises the caution banner, not a dialog") {
+    Bench bench;
+    bench.start("CFM-102", mw::PhasePlan::AsFound, mw::DecisionRule::SimpleAcceptance);
+    CHECK_FALSE(bench.window.bench()->cautionShown());
+    const int last = bench.model()->rowCount() / 2 - 1; // 300 V up-scale
+    bench.grid()->setCurrentIndex(bench.model()->index(last, ReadingGridModel::Indicated));
+    mwtest::typeInto(bench.grid(), QStringLiteral("301"));
+    CHECK(bench.window.bench()->cautionShown());
+    // IEC 61010-1:2010 6.3.1: 60 V DC is the hazardous-live limit for a steady DC voltage.
+    CHECK(bench.window.bench()->cautionText().contains(QStringLiteral("60 V DC")));
+    CHECK(bench.window.bench()->cautionText().contains(QStringLiteral("local electrical codes")));
+}
+
+TEST_CASE("a reviewer cannot calibrate, and signing in checks the password") {
+    Bench bench("rowan", "demo-review");
+    CHECK_FALSE(bench.window.workspace().can(mw::gui::Capability::Calibrate));
+    CHECK(bench.window.workspace().can(mw::gui::Capability::Review));
+    bench.window.registerPage()->selectByTag(QStringLiteral("CFM-101"));
+    auto* start =
+        bench.window.registerPage()->findChild<QPushButton*>(QStringLiteral("startCalibration"));
+    REQUIRE(start != nullptr);
+    CHECK_FALSE(start->isEnabled());
+    CHECK(start->toolTip().contains(QStringLiteral("does not calibrate")));
+    CHECK(bench.window.personLabel()->text().contains(QStringLiteral("Rowan Ettrick")));
+    CHECK(bench.window.personLabel()->text().contains(QStringLiteral("Reviewer")));
+    bench.window.signOut();
+    CHECK_FALSE(bench.window.signIn(QStringLiteral("tess"), QStringLiteral("wrong")));
+    CHECK_FALSE(bench.window.signIn(QStringLiteral("nobody"), QStringLiteral("demo-tech")));
+    CHECK(bench.window.personLabel()->text() == QStringLiteral("Nobody signed in"));
+    CHECK(bench.window.signIn(QStringLiteral("tess"), QStringLiteral("demo-tech")));
+    CHECK(start->isEnabled());
+}

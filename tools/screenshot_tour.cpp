@@ -1,0 +1,111 @@
+// Regenerates the README's screenshots from the demo workbook: opens the window offscreen, signs
+// in as the demo's people, walks through the screens as a technician and a reviewer would, and
+// writes what each shows to PNG files.
+// Usage: meterwright_tour OUTPUT_FOLDER [WORKBOOK]   (a new demo workbook when none is given)
+#include "app/gui/bench/bench_view.h"
+#include "app/gui/bench/reading_grid_model.h"
+#include "app/gui/bench/reading_grid_view.h"
+#include "app/gui/gui_entry.h"
+#include "app/gui/main_window.h"
+#include "app/gui/register_page.h"
+#include "app/gui/workspace.h"
+#include "storage/demo/demo_workbook.h"
+#include "storage/instrument_repository.h"
+#include "storage/session_repository.h"
+#include "tests/support/keyboard.h"
+
+#include <QApplication>
+#include <QDir>
+#include <QTabWidget>
+#include <QTemporaryDir>
+#include <QTest>
+
+#include <cstdio>
+
+namespace {
+
+void save(QWidget& widget, const QString& folder, const QString& name) {
+    QApplication::processEvents();
+    const QString path = QDir(folder).filePath(name);
+    if (!widget.grab().save(path)) {
+        std::fprintf(stderr, "tour: cannot write %s\n", qPrintable(path));
+        std::exit(1);
+    }
+    std::printf("tour: %s\n", qPrintable(path));
+}
+
+std::optional<std::int64_t> openSessionOf(mw::gui::MainWindow& window, const QString& tag,
+                                          mw::SessionState state) {
+    mw::storage::Workbook& workbook = *window.workbook();
+    const auto instrument = mw::storage::InstrumentRepository(workbook).findByTag(tag);
+    if (!instrument) {
+        return std::nullopt;
+    }
+    std::optional<std::int64_t> found;
+    for (const auto& s : mw::storage::SessionRepository(workbook).historyOf(instrument->id)) {
+        if (s.state == state) {
+            found = s.id;
+        }
+    }
+    return found;
+}
+
+} // namespace
+
+int main(int argc, char* argv[]) {
+    if (qEnvironmentVariableIsEmpty("QT_QPA_PLATFORM")) {
+        qputenv("QT_QPA_PLATFORM", "offscreen");
+    }
+    QApplication app(argc, argv);
+    mw::gui::initResources();
+    const QStringList arguments = QApplication::arguments();
+    if (arguments.size() < 2) {
+        std::fprintf(stderr, "usage: meterwright_tour OUTPUT_FOLDER [WORKBOOK]\n");
+        return 2;
+    }
+    const QString folder = arguments.at(1);
+    QDir().mkpath(folder);
+    QTemporaryDir scratch;
+    QString path = arguments.size() > 2 ? arguments.at(2) : QString();
+    if (path.isEmpty()) {
+        path = scratch.filePath(QStringLiteral("demo.meterwright"));
+        const auto today = std::chrono::floor<std::chrono::days>(std::chrono::system_clock::now());
+        mw::demo::writeDemoWorkbook(path, today);
+    }
+    mw::gui::MainWindow window;
+    window.resize(1280, 780);
+    window.show();
+    QApplication::setActiveWindow(&window);
+    QString error;
+    if (!window.openWorkbook(path, &error) ||
+        !window.signIn(QStringLiteral("tess"), QStringLiteral("demo-tech"))) {
+        std::fprintf(stderr, "tour: cannot open %s: %s\n", qPrintable(path), qPrintable(error));
+        return 1;
+    }
+    window.workspace().waitForBackgroundWork();
+    window.registerPage()->selectByTag(QStringLiteral("CFM-402"));
+    save(window, folder, QStringLiteral("register.png"));
+
+    // The draft in progress: as-found readings typed at the bench, advice showing.
+    if (const auto draft =
+            openSessionOf(window, QStringLiteral("CFM-402"), mw::SessionState::Draft)) {
+        window.openCalibration(*draft, &error);
+        mw::gui::ReadingGridView* grid = window.bench()->grid();
+        mw::gui::ReadingGridModel* model = window.bench()->gridModel();
+        for (int row = 0; row < model->rowCount(); ++row) {
+            const QModelIndex cell = model->index(row, mw::gui::ReadingGridModel::Indicated);
+            if (!cell.data().toString().isEmpty()) {
+                continue;
+            }
+            grid->setCurrentIndex(cell);
+            const double applied = model->index(row, mw::gui::ReadingGridModel::Applied)
+                                       .data(mw::gui::ReadingGridModel::ValueRole)
+                                       .toDouble();
+            mwtest::typeInto(grid, QString::number(applied * 1.012 + 0.05, 'f', 2));
+        }
+        save(window, folder, QStringLiteral("bench.png"));
+        window.bench()->findChild<QTabWidget*>()->setCurrentIndex(2);
+        save(window, folder, QStringLiteral("bench-advice.png"));
+    }
+    return 0;
+}
