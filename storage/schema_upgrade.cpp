@@ -45,6 +45,10 @@ QString legacy(const char* table) {
 // The SELECT list that turns a version 2 row into a version 3 row, column for column in the
 // order of schema_v3.cpp; nullptr: every column is copied as it is.
 const char* selectFor(const QString& table) {
+    if (table == QLatin1String("lab")) {
+        // Version 2 had no number-writing or due-window settings: the defaults.
+        return "id, name, address, accreditation_id, 0, 30 FROM v2_lab";
+    }
     if (table == QLatin1String("instrument_ranges")) {
         // A kind of one signal settles it; a multi-range meter's current ranges are DC (there
         // are no rectifier ammeters); its voltage ranges are not recorded.

@@ -30,13 +30,17 @@ std::vector<TableDefinition> makeTables() {
         active INTEGER NOT NULL CHECK (active IN (0, 1)),
         password_hash TEXT NOT NULL CHECK (password_hash LIKE '$argon2id$%')) STRICT)",
                  {"id", "login", "full_name", "role", "active", "password_hash"}});
-    t.push_back({"lab",
-                 R"(CREATE TABLE lab (
+    t.push_back(
+        {"lab",
+         R"(CREATE TABLE lab (
         id INTEGER PRIMARY KEY CHECK (id = 1),
         name TEXT NOT NULL CHECK (length(name) > 0),
         address TEXT NOT NULL,
-        accreditation_id TEXT) STRICT)",
-                 {"id", "name", "address", "accreditation_id"}});
+        accreditation_id TEXT,
+        decimal_comma INTEGER NOT NULL DEFAULT 0 CHECK (decimal_comma IN (0, 1)),
+        due_window_days INTEGER NOT NULL DEFAULT 30
+            CHECK (due_window_days BETWEEN 1 AND 366)) STRICT)",
+         {"id", "name", "address", "accreditation_id", "decimal_comma", "due_window_days"}});
     t.push_back({"instruments",
                  R"(CREATE TABLE instruments (
         id INTEGER PRIMARY KEY,

@@ -3,6 +3,7 @@
 
 #include "app/gui/session_edits.h"
 #include "storage/backup.h"
+#include "storage/lab_repository.h"
 #include "storage/sqlite_dialect.h"
 #include "storage/user_repository.h"
 #include "storage/workbook_error.h"
@@ -65,6 +66,13 @@ Workspace::Workspace(QObject* parent)
         }
         emit busyChanged(isBusy());
     });
+}
+
+Lab Workspace::lab() const {
+    if (!workbook_) {
+        return {};
+    }
+    return storage::LabRepository(*workbook_).load().value_or(Lab{});
 }
 
 Workspace::~Workspace() {

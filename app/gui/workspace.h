@@ -4,6 +4,7 @@
 #pragma once
 
 #include "app/gui/change_notifier.h"
+#include "core/model/lab.h"
 #include "core/model/user.h"
 #include "storage/workbook.h"
 
@@ -47,6 +48,8 @@ public:
     void signOut();
     const std::optional<User>& user() const { return user_; }
     bool can(Capability capability) const;
+    // The lab's identity and settings as saved now (defaults until the lab is described).
+    Lab lab() const;
 
     QUndoStack* undoStack() { return &undo_; }
     ChangeNotifier* notifier() { return &notifier_; }
