@@ -15,7 +15,7 @@ if [ -z "${DISPLAY:-}" ] && [ -z "${WAYLAND_DISPLAY:-}" ] && [ -z "${QT_QPA_PLAT
 fi
 
 # The demo workbook is written once; later runs open it as it was left.
-demo="$MW_ROOT/build/demo-workbook.mwb"
+demo="$MW_ROOT/build/demo.meterwright"
 if [ ! -f "$demo" ]; then
     "$app" demo "$demo"
 fi

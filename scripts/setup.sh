@@ -14,6 +14,7 @@ MW_PACKAGES=(
     libqt6sql6-sqlite qt6-qpa-plugins libsqlite3-dev sqlite3 libsodium-dev
     catch2 libboost-math-dev ngspice
     xvfb xauth fonts-dejavu-core clang-format
+    desktop-file-utils shared-mime-info libglib2.0-bin
 )
 
 mw_install_packages() {

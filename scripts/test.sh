@@ -11,7 +11,8 @@ mw_install_packages
 
 echo "test: checking formatting (clang-format 14, .clang-format)"
 mapfile -t sources < <(git ls-files -- 'app/*.cpp' 'app/*.h' 'core/*.cpp' 'core/*.h' \
-    'storage/*.cpp' 'storage/*.h' 'tests/*.cpp' 'tests/*.h' 'bench/*.cpp' 'bench/*.h')
+    'storage/*.cpp' 'storage/*.h' 'tests/*.cpp' 'tests/*.h' 'bench/*.cpp' 'bench/*.h' \
+    'tools/*.cpp' 'tools/*.h')
 if [ "${#sources[@]}" -gt 0 ]; then
     clang-format --dry-run -Werror "${sources[@]}"
 fi

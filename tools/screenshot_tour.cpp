@@ -5,6 +5,7 @@
 #include "app/gui/bench/bench_view.h"
 #include "app/gui/bench/reading_grid_model.h"
 #include "app/gui/bench/reading_grid_view.h"
+#include "app/gui/bench/session_setup_dialog.h"
 #include "app/gui/gui_entry.h"
 #include "app/gui/main_window.h"
 #include "app/gui/register_page.h"
@@ -12,6 +13,7 @@
 #include "storage/demo/demo_workbook.h"
 #include "storage/instrument_repository.h"
 #include "storage/session_repository.h"
+#include "storage/standard_repository.h"
 #include "tests/support/keyboard.h"
 
 #include <QApplication>
@@ -21,6 +23,7 @@
 #include <QTest>
 
 #include <cstdio>
+#include <iterator>
 
 namespace {
 
@@ -106,6 +109,40 @@ int main(int argc, char* argv[]) {
         save(window, folder, QStringLiteral("bench.png"));
         window.bench()->findChild<QTabWidget*>()->setCurrentIndex(2);
         save(window, folder, QStringLiteral("bench-advice.png"));
+        window.bench()->findChild<QTabWidget*>()->setCurrentIndex(0);
+    }
+
+    // A new calibration under guarded acceptance (ILAC G8:09/2019 4.2.2, r = 1): errors inside
+    // the limit but within U of it come out as conditional results.
+    const auto lab =
+        mw::storage::InstrumentRepository(*window.workbook()).findByTag(QStringLiteral("CFM-103"));
+    const auto calibrator =
+        mw::storage::StandardRepository(*window.workbook()).findByTag(QStringLiteral("CFS-01"));
+    if (lab && calibrator) {
+        mw::gui::SessionSetup setup;
+        setup.ranges = {lab->ranges.front().id};
+        setup.phases = mw::PhasePlan::AsFound;
+        setup.standards = {{calibrator->id, "", {}, ""}};
+        setup.environment = {22.6, 44.0};
+        setup.rule = mw::DecisionRule::GuardedAcceptance;
+        setup.guardFactor = 1.0;
+        setup.method = "Calibrator set to each test point; indication read on the mirror scale.";
+        if (!window.startCalibration(lab->id, setup, &error)) {
+            std::fprintf(stderr, "tour: cannot start a calibration: %s\n", qPrintable(error));
+            return 1;
+        }
+        mw::gui::ReadingGridView* grid = window.bench()->grid();
+        mw::gui::ReadingGridModel* model = window.bench()->gridModel();
+        const double offsets[] = {0.01, 0.03, 0.04, 0.045, 0.06, 0.02, -0.01, 0.035, 0.02, 0.0};
+        grid->setCurrentIndex(model->index(0, mw::gui::ReadingGridModel::Indicated));
+        for (int row = 0; row < model->rowCount(); ++row) {
+            const double applied = model->index(row, mw::gui::ReadingGridModel::Applied)
+                                       .data(mw::gui::ReadingGridModel::ValueRole)
+                                       .toDouble();
+            const double offset = offsets[std::size_t(row) % std::size(offsets)];
+            mwtest::typeInto(grid, QString::number(applied + offset, 'f', 3));
+        }
+        save(window, folder, QStringLiteral("bench-guarded.png"));
     }
     return 0;
 }

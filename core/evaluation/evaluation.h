@@ -83,7 +83,8 @@ struct PointResult {
     int pointIndex = -1; // the test-point index of its readings; -1 when grouped by value
     double applied = 0.0;
     double indicated = 0.0; // mean indication in the direction with the larger error
-    double error = 0.0;     // indicated − applied in that direction (nearest double)
+    Direction decidingDirection = Direction::Up; // that direction (the one judged)
+    double error = 0.0; // indicated − applied in that direction (nearest double)
     std::optional<double> errorPercentOfReading; // absent at zero applied
     double errorPercentOfFiducial = 0.0;
     std::optional<double> errorUp;

@@ -174,6 +174,7 @@ EvaluatedPoint evaluatePoint(const EvaluationInput& input, const PointGroup& gro
     // point is judged by the direction with the larger error, compared exactly.
     const bool downWorse = hasDown && (!hasUp || group.down.compareMagnitude(group.up) > 0);
     const ExactMean chosen = downWorse ? group.down : group.up;
+    point.decidingDirection = downWorse ? Direction::Down : Direction::Up;
     point.error = chosen.toDouble();
     point.indicated = point.applied + point.error;
     if (point.applied != 0.0) {

@@ -12,8 +12,10 @@
 #include "app/gui/register_page.h"
 #include "app/gui/workspace.h"
 #include "core/evaluation/session_evaluation.h"
+#include "core/plan/session_plan.h"
 #include "storage/demo/demo_workbook.h"
 #include "storage/instrument_repository.h"
+#include "storage/lab_repository.h"
 #include "storage/session_repository.h"
 #include "storage/standard_repository.h"
 #include "tests/support/keyboard.h"
@@ -173,7 +175,11 @@ TEST_CASE("an entry that does not parse stays in its cell, marked, and nothing i
     bench.grid()->setCurrentIndex(cell);
     mwtest::typeInto(bench.grid(), QStringLiteral("6 mA"));
     CHECK(cell.data(ReadingGridModel::RejectedRole).toBool());
-    bench.model()->setDecimalComma(true);
+    mw::storage::LabRepository labs(*bench.window.workspace().workbook());
+    mw::Lab lab = *labs.load();
+    lab.decimal_comma = true;
+    labs.save(lab);
+    bench.window.bench()->openSession(*bench.window.bench()->sessionId());
     bench.grid()->setCurrentIndex(cell);
     mwtest::typeInto(bench.grid(), QStringLiteral("6,04"));
     CHECK_FALSE(cell.data(ReadingGridModel::RejectedRole).toBool());
@@ -208,6 +214,40 @@ TEST_CASE("every edit is undone and redone, a pasted column as one step") {
     CHECK(bench.stored().readings.size() == typed.size() - 1);
     undo->undo();
     CHECK(bench.stored().readings == typed);
+}
+
+TEST_CASE("a point is added, moved before it is measured, and removed, each undoable") {
+    Bench bench;
+    bench.start("CFM-103", mw::PhasePlan::AsFound, mw::DecisionRule::SimpleAcceptance);
+    QUndoStack* undo = bench.window.workspace().undoStack();
+    const int rows = bench.model()->rowCount();
+    QString message;
+    REQUIRE(bench.window.bench()->addPoint(QStringLiteral("7.5"), &message)); // 0-10 V: volts
+    CHECK(bench.model()->rowCount() > rows);
+    const mw::TestPoint added = mw::effectivePlan(bench.stored()).back();
+    CHECK(added.nominal == 7.5);
+    // Move the new point to another value.
+    int last = 0;
+    while (bench.model()->keyAt(last).point_index != added.point_index) {
+        ++last;
+    }
+    bench.grid()->setCurrentIndex(bench.model()->index(last, ReadingGridModel::Indicated));
+    REQUIRE(bench.window.bench()->moveCurrentPoint(QStringLiteral("7500 mV"), &message));
+    CHECK(mw::effectivePlan(bench.stored()).back().nominal == Approx(7.5));
+    REQUIRE(bench.window.bench()->moveCurrentPoint(QStringLiteral("8.5"), &message));
+    CHECK(mw::effectivePlan(bench.stored()).back().nominal == 8.5);
+    CHECK(message.contains(QStringLiteral("moved to 8.5")));
+    CHECK_FALSE(bench.window.bench()->moveCurrentPoint(QStringLiteral("x"), &message));
+    CHECK(message.contains(QStringLiteral("not moved")));
+    undo->undo(); // back to 7.5
+    CHECK(mw::effectivePlan(bench.stored()).back().nominal == 7.5);
+    // Once it holds a reading it stays where it is.
+    bench.grid()->setCurrentIndex(bench.model()->index(last, ReadingGridModel::Indicated));
+    mwtest::typeInto(bench.grid(), QStringLiteral("7.52"));
+    bench.grid()->setCurrentIndex(bench.model()->index(last, ReadingGridModel::Indicated));
+    CHECK_FALSE(bench.window.bench()->moveCurrentPoint(QStringLiteral("9"), &message));
+    CHECK(message.contains(QStringLiteral("already has readings")));
+    CHECK(mw::effectivePlan(bench.stored()).back().nominal == 7.5);
 }
 
 TEST_CASE("submit names the readings still missing and the workbook's refusals") {

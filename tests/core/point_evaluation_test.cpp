@@ -370,3 +370,23 @@ TEST_CASE("the same repeat number twice at a point and direction is refused") {
     }
     CHECK(evaluateRange(input).points.front().readingCount == 4);
 }
+
+TEST_CASE("a point is judged by its direction with the larger error, and says which") {
+    // The class limit holds for every indication, approached rising or falling, so the point
+    // is judged by the worse of the two (common practice).
+    EvaluationInput input;
+    input.range = {0.0, 10.0, ScaleType::ZeroAtEnd, {}};
+    input.classIndex = 0.5;
+    input.readings = {{4.0, 4.04, Direction::Up, 0, 3},
+                      {4.0, 4.0, Direction::Down, 0, 3},
+                      {6.0, 6.01, Direction::Up, 0, 4},
+                      {6.0, 5.97, Direction::Down, 0, 4},
+                      {8.0, 8.02, Direction::Up, 0, 5}};
+    const auto points = evaluateRange(input).points;
+    REQUIRE(points.size() == 3);
+    CHECK(points[0].decidingDirection == Direction::Up);
+    CHECK(points[0].error == Approx(0.04));
+    CHECK(points[1].decidingDirection == Direction::Down); // |−0.03| > |+0.01|
+    CHECK(points[1].error == Approx(-0.03));
+    CHECK(points[2].decidingDirection == Direction::Up); // the only direction read
+}

@@ -20,7 +20,6 @@
 #include <QComboBox>
 #include <QHBoxLayout>
 #include <QHeaderView>
-#include <QInputDialog>
 #include <QLabel>
 #include <QPushButton>
 #include <QSplitter>
@@ -120,6 +119,7 @@ void BenchView::build() {
     }
     asFound_->setChecked(true);
     addPoint_ = new QPushButton(tr("Add point…"), this);
+    movePoint_ = new QPushButton(tr("Move point…"), this);
     removePoint_ = new QPushButton(tr("Remove point"), this);
     setup_ = new QPushButton(tr("Set-up…"), this);
     submit_ = new QPushButton(tr("Submit for review…"), this);
@@ -131,6 +131,7 @@ void BenchView::build() {
     controls->addWidget(asLeft_);
     controls->addSpacing(12);
     controls->addWidget(addPoint_);
+    controls->addWidget(movePoint_);
     controls->addWidget(removePoint_);
     controls->addStretch();
     controls->addWidget(setup_);
@@ -183,29 +184,14 @@ void BenchView::build() {
     connect(model_, &ReadingGridModel::entryRefused, this, &BenchView::statusMessage);
     connect(resistors_, &ResistorPanel::statusMessage, this, &BenchView::statusMessage);
     connect(notes_, &NotesPanel::statusMessage, this, &BenchView::statusMessage);
-    connect(addPoint_, &QPushButton::clicked, this, [this] {
-        bool ok = false;
-        const QString typed = QInputDialog::getText(
-            this, tr("Add a test point"),
-            tr("Value of the new point (a bare number is in the range's unit):"), QLineEdit::Normal,
-            QString(), &ok);
-        if (ok && !typed.trimmed().isEmpty()) {
-            QString message;
-            addPoint(typed, &message);
-            emit statusMessage(message);
-        }
-    });
+    connectPointActions();
     connect(setup_, &QPushButton::clicked, this, &BenchView::setupRequested);
     connect(submit_, &QPushButton::clicked, this, &BenchView::submitRequested);
-    connect(removePoint_, &QPushButton::clicked, this, [this] {
-        QString message;
-        removeCurrentPoint(&message);
-        emit statusMessage(message);
-    });
 }
 
 void BenchView::openSession(std::int64_t sessionId) {
     bench_ = std::make_unique<BenchSession>(workspace_, sessionId);
+    model_->setDecimalComma(workspace_.lab().decimal_comma);
     fillRanges();
     asFound_->setChecked(bench_->session().phases != PhasePlan::AsLeft);
     asLeft_->setChecked(bench_->session().phases == PhasePlan::AsLeft);
@@ -265,8 +251,9 @@ void BenchView::reload(bool withRegister) {
 
 void BenchView::refresh() {
     const bool open = bench_ != nullptr;
-    for (QWidget* w : std::initializer_list<QWidget*>{range_, asFound_, asLeft_, addPoint_,
-                                                      removePoint_, setup_, submit_, grid_}) {
+    for (QWidget* w :
+         std::initializer_list<QWidget*>{range_, asFound_, asLeft_, addPoint_, movePoint_,
+                                         removePoint_, setup_, submit_, grid_}) {
         w->setEnabled(open);
     }
     if (!open) {
@@ -280,7 +267,8 @@ void BenchView::refresh() {
     const CalibrationSession& s = bench_->session();
     const Instrument& instrument = bench_->instrument();
     const bool editable = bench_->editable();
-    for (QWidget* w : std::initializer_list<QWidget*>{addPoint_, removePoint_, setup_, submit_}) {
+    for (QWidget* w :
+         std::initializer_list<QWidget*>{addPoint_, movePoint_, removePoint_, setup_, submit_}) {
         w->setEnabled(editable);
     }
     const auto technician = storage::UserRepository(*workspace_.workbook()).find(s.technician_id);
@@ -307,7 +295,19 @@ void BenchView::refresh() {
         caution_->hide();
     }
     const std::int64_t rangeId = range_->currentData().toLongLong();
+    // A change of plan rebuilds the rows; the cursor stays on the reading it was on.
+    const QModelIndex before = grid_->currentIndex();
+    const std::optional<ReadingKey> keyBefore =
+        before.isValid() && before.row() < model_->rowCount()
+            ? std::optional(model_->keyAt(before.row()))
+            : std::nullopt;
     model_->show(*bench_, rangeId, chosenPhase());
+    if (keyBefore && !grid_->currentIndex().isValid()) {
+        const int row = model_->rowOf(*keyBefore);
+        if (row >= 0) {
+            grid_->setCurrentIndex(model_->index(row, before.column()));
+        }
+    }
     const auto plan = effectivePlan(s);
     grid_->setColumnHidden(
         ReadingGridModel::Repeat,
@@ -387,52 +387,6 @@ void BenchView::showCurrentPointBudget() {
         }
     }
     budget_->showPoint(std::nullopt, range->unit, QString());
-}
-
-bool BenchView::addPoint(const QString& typed, QString* message) {
-    if (!bench_) {
-        return false;
-    }
-    const RangeSpec* range = bench_->range(range_->currentData().toLongLong());
-    try {
-        ParseOptions options;
-        const double top = std::max(std::fabs(range->lower_limit), std::fabs(range->full_scale));
-        options.bareNumberPowerOfTen = top > 0.0 ? int(std::floor(std::log10(top) / 3.0)) * 3 : 0;
-        const double nominal = parseValue(typed.trimmed().toStdString(), range->unit, options);
-        int repeats = 1;
-        for (const TestPoint& point : effectivePlan(bench_->session())) {
-            if (point.range_id == range->id) {
-                repeats = std::max(repeats, point.repeats);
-            }
-        }
-        const TestPoint added =
-            workspace_.edits().addPoint(bench_->id(), range->id, nominal, repeats);
-        *message = tr("Point %1 added at %2.")
-                       .arg(added.point_index + 1)
-                       .arg(text(formatEngineering(nominal, 4, range->unit)));
-        return true;
-    } catch (const std::exception& error) {
-        *message = tr("Point not added: %1").arg(QString::fromUtf8(error.what()));
-        return false;
-    }
-}
-
-bool BenchView::removeCurrentPoint(QString* message) {
-    const QModelIndex current = grid_->currentIndex();
-    if (!bench_ || !current.isValid()) {
-        *message = tr("Choose a point in the grid first.");
-        return false;
-    }
-    const ReadingKey key = model_->keyAt(current.row());
-    try {
-        workspace_.edits().removePoint(bench_->id(), key.range_id, key.point_index);
-        *message =
-            tr("Point %1 removed with its readings (Undo puts it back).").arg(key.point_index + 1);
-        return true;
-    } catch (const std::exception& error) {
-        *message = tr("Point not removed: %1").arg(QString::fromUtf8(error.what()));
-        return false;
-    }
 }
 
 bool BenchView::submit(QString* message) {

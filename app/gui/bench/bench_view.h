@@ -50,6 +50,7 @@ public:
     bool submit(QString* message);
     // Adds a point at a value typed as on the bench (the range's unit is implied).
     bool addPoint(const QString& nominal, QString* message);
+    bool moveCurrentPoint(const QString& value, QString* message);
     bool removeCurrentPoint(QString* message);
     // Saves a value still being typed in the grid (see ReadingGridView::finishEditing).
     void finishEditing();
@@ -74,6 +75,7 @@ signals:
 
 private:
     void build();
+    void connectPointActions();
     void reload(bool withRegister = false);
     void refresh();
     void refreshResults();
@@ -90,6 +92,7 @@ private:
     QToolButton* asLeft_ = nullptr;
     QButtonGroup* phaseGroup_ = nullptr;
     QPushButton* addPoint_ = nullptr;
+    QPushButton* movePoint_ = nullptr;
     QPushButton* removePoint_ = nullptr;
     QPushButton* setup_ = nullptr;
     QPushButton* submit_ = nullptr;

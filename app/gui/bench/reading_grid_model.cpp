@@ -238,10 +238,24 @@ QVariant ReadingGridModel::display(const Row& row, int column) const {
         }
         return row.result->tur ? text(row.result->turText) : tr("no reference");
     case Decision:
-        return row.result ? text(std::string(displayName(row.result->decision))) : QVariant();
+        if (!row.result) {
+            return {};
+        }
+        if (!decides(row)) {
+            return row.result->decidingDirection == Direction::Up ? tr("judged on ▲")
+                                                                  : tr("judged on ▼");
+        }
+        return text(std::string(displayName(row.result->decision)));
     default:
         return {};
     }
+}
+
+bool ReadingGridModel::decides(const Row& row) {
+    // A point is judged by its direction with the larger error; with readings both ways the
+    // other row names that direction instead of repeating a verdict its own error did not earn.
+    return !row.result || !row.result->errorUp || !row.result->errorDown ||
+           row.key.direction == row.result->decidingDirection;
 }
 
 QVariant ReadingGridModel::data(const QModelIndex& index, int role) const {
@@ -281,7 +295,7 @@ QVariant ReadingGridModel::data(const QModelIndex& index, int role) const {
     case OutcomeRole:
         return row.result ? QVariant(int(row.result->decision)) : QVariant();
     case Qt::DecorationRole:
-        if (index.column() == Decision && row.result) {
+        if (index.column() == Decision && row.result && decides(row)) {
             return outcomeIcon(row.result->decision, QApplication::palette());
         }
         if (index.column() == Tur && row.result && row.result->turBelowMinimum) {
@@ -306,6 +320,12 @@ QVariant ReadingGridModel::data(const QModelIndex& index, int role) const {
         if (index.column() == Tur && row.result && row.result->turBelowMinimum) {
             return tr("TUR below 4:1: the calibration's uncertainty is large against the "
                       "tolerance");
+        }
+        if (index.column() == Decision && row.result && !decides(row)) {
+            return tr("The point is judged by the direction with the larger error (%1): %2")
+                .arg(row.result->decidingDirection == Direction::Up ? tr("up-scale")
+                                                                    : tr("down-scale"),
+                     text(std::string(displayName(row.result->decision))));
         }
         if (index.column() == Uncertainty && row.result) {
             return tr("Expanded uncertainty U = k·u_c with k = %1 (ν_eff = %2), rounded up to "

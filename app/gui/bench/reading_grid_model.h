@@ -92,6 +92,7 @@ private:
     // removed); throws QuantityError for text that does not parse.
     std::optional<Reading> edited(const Row& row, int column, const QString& text) const;
     QString formatted(double value) const;
+    static bool decides(const Row& row);
 
     Workspace& workspace_;
     std::int64_t sessionId_ = 0;

@@ -7,6 +7,7 @@
 #include <QChart>
 #include <QEvent>
 #include <QGraphicsItem>
+#include <QGraphicsLayout>
 #include <QLegendMarker>
 #include <QLineSeries>
 #include <QPainter>
@@ -14,6 +15,7 @@
 #include <QSvgGenerator>
 #include <QValueAxis>
 
+#include <cmath>
 #include <vector>
 
 namespace mw::gui {
@@ -98,6 +100,29 @@ QList<QPointF> points(const ChartLine& line) {
     return out;
 }
 
+// A step of 1, 2 or 5 × 10^n giving about five intervals over `span`, so tick labels are
+// round numbers a reader can interpolate between.
+double niceStep(double span) {
+    const double rough = span / 5.0;
+    const double decade = std::pow(10.0, std::floor(std::log10(rough)));
+    for (const double factor : {1.0, 2.0, 5.0}) {
+        if (factor * decade >= rough) {
+            return factor * decade;
+        }
+    }
+    return 10.0 * decade;
+}
+
+void setRoundTicks(QValueAxis* axis, double step) {
+    axis->setTickType(QValueAxis::TicksDynamic);
+    axis->setTickAnchor(0.0);
+    axis->setTickInterval(step);
+    axis->setLabelFormat(step >= 1.0 ? QStringLiteral("%.0f")
+                                     : QStringLiteral("%.") +
+                                           QString::number(int(std::ceil(-std::log10(step)))) +
+                                           QStringLiteral("f"));
+}
+
 bool isDark(const QPalette& palette) {
     return palette.color(QPalette::Window).lightness() < 128;
 }
@@ -112,18 +137,17 @@ SessionChartView::SessionChartView(QWidget* parent)
     chart->setTitle(tr("Error against applied value"));
     limitUpper_ = line(chart, tr("Class limit"), Qt::SolidLine);
     limitLower_ = line(chart, tr("Class limit (lower)"), Qt::SolidLine);
-    guardUpper_ = line(chart, tr("Acceptance limit (guard band)"), Qt::DashLine);
+    guardUpper_ = line(chart, tr("Guard band"), Qt::DashLine);
     guardLower_ = line(chart, tr("Acceptance limit (lower)"), Qt::DashLine);
-    predicted_ = line(chart, tr("Predicted by the diode model"), Qt::DotLine);
+    predicted_ = line(chart, tr("Diode model"), Qt::DotLine);
     const std::pair<Phase, Direction> order[] = {{Phase::AsFound, Direction::Up},
                                                  {Phase::AsFound, Direction::Down},
                                                  {Phase::AsLeft, Direction::Up},
                                                  {Phase::AsLeft, Direction::Down}};
     for (const auto& [phase, direction] : order) {
         auto* series = new QScatterSeries(chart);
-        series->setName(
-            tr("%1 %2").arg(phase == Phase::AsFound ? tr("As-found") : tr("As-left"),
-                            direction == Direction::Up ? tr("up-scale ▲") : tr("down-scale ▼")));
+        series->setName(tr("%1 %2").arg(phase == Phase::AsFound ? tr("As-found") : tr("As-left"),
+                                        direction == Direction::Up ? tr("▲") : tr("▼")));
         series->setMarkerSize(13);
         chart->addSeries(series);
         marks_[{int(phase), int(direction)}] = series;
@@ -219,9 +243,15 @@ void SessionChartView::showChart(const RangeChart& data, const QString& unitLabe
     bars_->setBars(std::move(bars), palette.color(QPalette::Highlight),
                    isDark(palette) ? QColor(0xff, 0xb0, 0x40) : QColor(0xb0, 0x50, 0x00));
     x_->setRange(left, right);
+    setRoundTicks(x_, niceStep(data.upper - data.lower));
     x_->setTitleText(tr("Applied (%1)").arg(unitLabel));
     const double extent = data.yExtent > 0.0 ? data.yExtent : 1.0;
-    y_->setRange(-extent, extent);
+    const double yStep = niceStep(extent);
+    const double yEdge = std::ceil(extent / yStep - 1e-9) * yStep;
+    y_->setRange(-yEdge, yEdge);
+    setRoundTicks(y_, yStep);
+    // Markers shown or hidden above: the legend lays itself out again only when told to.
+    chart()->legend()->layout()->invalidate();
 }
 
 QList<QPointF> SessionChartView::seriesPoints(const QString& name) const {
