@@ -47,6 +47,8 @@ MainWindow::MainWindow(QWidget* parent)
     statusBar()->showMessage(tr("No workbook open"));
     resize(1280, 780);
     connect(workspace_.get(), &Workspace::userChanged, this, &MainWindow::updateForPerson);
+    // Also when the background check turns the workbook read-only.
+    connect(workspace_.get(), &Workspace::workbookChanged, this, &MainWindow::updateForPerson);
     connect(workspace_.get(), &Workspace::backgroundMessage, this, &MainWindow::report);
     connect(workspace_.get(), &Workspace::busyChanged, busy_, &QWidget::setVisible);
     connect(workspace_->notifier(), &ChangeNotifier::editRefused, this,
@@ -59,7 +61,9 @@ MainWindow::MainWindow(QWidget* parent)
 MainWindow::~MainWindow() {
     // The pages use the workspace to their last moment (a cell being typed in is saved as the
     // window goes), so they go first.
-    bench_->finishEditing();
+    if (bench_ != nullptr) {
+        bench_->finishEditing();
+    }
     delete pages_;
 }
 
@@ -78,9 +82,7 @@ InstrumentDetailPanel* MainWindow::detailPanel() const {
 void MainWindow::buildPages() {
     pages_ = new QStackedWidget(this);
     register_ = new RegisterPage(*workspace_, pages_);
-    bench_ = new BenchView(*workspace_, pages_);
     pages_->addWidget(register_);
-    pages_->addWidget(bench_);
     setCentralWidget(pages_);
     connect(register_, &RegisterPage::startRequested, this, &MainWindow::askToStart);
     connect(register_, &RegisterPage::openRequested, this, [this](qint64 sessionId) {
@@ -90,9 +92,18 @@ void MainWindow::buildPages() {
         }
     });
     connect(register_, &RegisterPage::statusMessage, this, &MainWindow::report);
-    connect(bench_, &BenchView::statusMessage, this, &MainWindow::report);
-    connect(bench_, &BenchView::setupRequested, this, &MainWindow::askToChangeSetup);
-    connect(bench_, &BenchView::submitRequested, this, &MainWindow::askToSubmit);
+}
+
+BenchView* MainWindow::bench() {
+    // Built when first needed: the window is up sooner, and a reviewer may never need it.
+    if (bench_ == nullptr) {
+        bench_ = new BenchView(*workspace_, pages_);
+        pages_->addWidget(bench_);
+        connect(bench_, &BenchView::statusMessage, this, &MainWindow::report);
+        connect(bench_, &BenchView::setupRequested, this, &MainWindow::askToChangeSetup);
+        connect(bench_, &BenchView::submitRequested, this, &MainWindow::askToSubmit);
+    }
+    return bench_;
 }
 
 void MainWindow::buildMenus() {
@@ -174,8 +185,9 @@ void MainWindow::updateForPerson() {
                                             : QString());
     signOutAction_->setEnabled(user.has_value());
     startAction_->setEnabled(workspace_->can(Capability::Calibrate));
-    reloadRegisterQuietly();
-    if (bench_->sessionId()) {
+    // What the register offers depends on the person; what it lists does not.
+    register_->updateActions();
+    if (bench_ != nullptr && bench_->sessionId()) {
         // The bench follows the person: read-only for someone who may not calibrate.
         QString error;
         openCalibration(*bench_->sessionId(), &error);
@@ -187,6 +199,11 @@ void MainWindow::report(const QString& text) {
 }
 
 bool MainWindow::openWorkbook(const QString& path, QString* error) {
+    // The calibration on the bench belongs to the workbook open now: it goes first (every
+    // accepted value is already saved), so nothing reopens it in the next workbook.
+    if (bench_ != nullptr) {
+        bench_->closeSession();
+    }
     try {
         workspace_->open(path);
         register_->reload(); // reads every row the register shows: bad values fail here
@@ -198,7 +215,6 @@ bool MainWindow::openWorkbook(const QString& path, QString* error) {
         }
         return false;
     }
-    bench_->closeSession();
     showRegister();
     setWindowTitle(tr("%1 — Meterwright").arg(QFileInfo(path).fileName()));
     QString status = tr("Workbook %1: %2 instruments")
@@ -250,9 +266,10 @@ void MainWindow::promptSignIn() {
 }
 
 void MainWindow::signOut() {
-    bench_->finishEditing();
+    if (bench_ != nullptr) {
+        bench_->finishEditing();
+    }
     workspace_->signOut();
-    bench_->closeSession();
     showRegister();
     report(tr("Signed out. Workbook → Sign in as another person… to go on."));
 }
@@ -274,7 +291,7 @@ void MainWindow::showRegister() {
 }
 
 void MainWindow::showBench() {
-    pages_->setCurrentWidget(bench_);
+    pages_->setCurrentWidget(bench());
     benchAction_->setChecked(true);
 }
 
@@ -321,7 +338,7 @@ void MainWindow::showAbout() {
 }
 
 void MainWindow::exportChart() {
-    if (!bench_->sessionId()) {
+    if (bench_ == nullptr || !bench_->sessionId()) {
         report(tr("Open a calibration on the bench first."));
         return;
     }
@@ -339,7 +356,9 @@ void MainWindow::exportChart() {
 }
 
 void MainWindow::closeEvent(QCloseEvent* event) {
-    bench_->finishEditing();
+    if (bench_ != nullptr) {
+        bench_->finishEditing();
+    }
     workspace_->waitForBackgroundWork();
     event->accept();
 }

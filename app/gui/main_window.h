@@ -37,7 +37,7 @@ public:
     Workspace& workspace() { return *workspace_; }
     storage::Workbook* workbook() const;
     RegisterPage* registerPage() const { return register_; }
-    BenchView* bench() const { return bench_; }
+    BenchView* bench(); // the bench page, built on first use
     InstrumentListModel* instrumentModel() const;
     InstrumentDetailPanel* detailPanel() const;
     QLabel* personLabel() const { return person_; }

@@ -73,7 +73,7 @@ bool MainWindow::startCalibration(std::int64_t instrumentId, const SessionSetup&
 
 bool MainWindow::openCalibration(std::int64_t sessionId, QString* error) {
     try {
-        bench_->openSession(sessionId);
+        bench()->openSession(sessionId);
     } catch (const std::exception& failure) {
         if (error != nullptr) {
             *error = QString::fromUtf8(failure.what());
@@ -107,7 +107,7 @@ void MainWindow::askToStart(qint64 instrumentId) {
 }
 
 void MainWindow::askToChangeSetup() {
-    const BenchSession* bench = bench_->bench();
+    const BenchSession* bench = bench_ != nullptr ? bench_->bench() : nullptr;
     if (bench == nullptr || !bench->editable()) {
         report(tr("Open a calibration you may change on the bench first."));
         return;
@@ -177,7 +177,7 @@ void MainWindow::askToChangeSetup() {
 }
 
 void MainWindow::askToSubmit() {
-    const BenchSession* bench = bench_->bench();
+    const BenchSession* bench = bench_ != nullptr ? bench_->bench() : nullptr;
     if (bench == nullptr || !bench->editable()) {
         report(tr("Open a calibration you may submit on the bench first."));
         return;
@@ -195,7 +195,7 @@ void MainWindow::askToSubmit() {
         return;
     }
     QString message;
-    if (bench_->submit(&message)) {
+    if (MainWindow::bench()->submit(&message)) {
         report(message);
     } else {
         QMessageBox::warning(this, tr("Not submitted"), message);

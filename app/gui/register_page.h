@@ -33,6 +33,8 @@ public:
     // The open calibration (draft, returned or submitted) of the selected instrument.
     std::optional<std::int64_t> openSessionOfSelected() const;
     bool selectByTag(const QString& tag);
+    // Enables what the person signed in may do with the selected instrument (cheap: no reload).
+    void updateActions();
 
 signals:
     void startRequested(qint64 instrumentId);
@@ -41,7 +43,6 @@ signals:
 
 private:
     void showSelected();
-    void updateActions();
     void updateEmptyState();
 
     Workspace& workspace_;
