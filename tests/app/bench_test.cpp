@@ -5,12 +5,14 @@
 #include "app/gui/bench/bench_view.h"
 #include "app/gui/bench/reading_grid_model.h"
 #include "app/gui/bench/reading_grid_view.h"
+#include "app/gui/bench/session_chart_view.h"
 #include "app/gui/bench/session_setup_dialog.h"
 #include "app/gui/bench/work_panels.h"
 #include "app/gui/gui_entry.h"
 #include "app/gui/main_window.h"
 #include "app/gui/register_page.h"
 #include "app/gui/workspace.h"
+#include "core/evaluation/session_chart.h"
 #include "core/evaluation/session_evaluation.h"
 #include "core/plan/session_plan.h"
 #include "storage/demo/demo_workbook.h"
@@ -24,10 +26,14 @@
 
 #include <QAbstractItemModelTester>
 #include <QApplication>
+#include <QChart>
 #include <QClipboard>
+#include <QFile>
+#include <QImage>
 #include <QLabel>
 #include <QListWidget>
 #include <QPushButton>
+#include <QTableWidget>
 #include <QTemporaryDir>
 #include <QUndoStack>
 
@@ -248,6 +254,109 @@ TEST_CASE("a point is added, moved before it is measured, and removed, each undo
     CHECK_FALSE(bench.window.bench()->moveCurrentPoint(QStringLiteral("9"), &message));
     CHECK(message.contains(QStringLiteral("already has readings")));
     CHECK(mw::effectivePlan(bench.stored()).back().nominal == 7.5);
+}
+
+TEST_CASE("resistor checks against the engine's design, notes and the session log") {
+    Bench bench;
+    bench.start("CFM-101", mw::PhasePlan::AsFoundAndAsLeft, mw::DecisionRule::SimpleAcceptance);
+    mw::gui::ResistorPanel* resistors = bench.window.bench()->resistors();
+    // A 15 V range on a 1 mA, 100 Ω movement: Rs = V / I_fs − R_m = 14.9 kΩ (the multiplier
+    // formula of any electrical measurements textbook; common practice).
+    const QString designed =
+        resistors->findChild<QLabel*>(QStringLiteral("designedResistor"))->text();
+    CHECK(designed.contains(QStringLiteral("14.900 kΩ")));
+    QString message;
+    REQUIRE(resistors->recordMeasured(QStringLiteral("14k95"), &message));   // +0.34 %
+    REQUIRE(resistors->recordMeasured(QStringLiteral("15.2 kΩ"), &message)); // +2.0 %
+    CHECK_FALSE(resistors->recordMeasured(QStringLiteral("15 V"), &message));
+    CHECK(message.contains(QStringLiteral("V")));
+    REQUIRE(bench.stored().resistor_checks.size() == 2);
+    CHECK(bench.stored().resistor_checks[0].measured_ohms == Approx(14950.0));
+    CHECK(bench.stored().resistor_checks[0].computed_ohms == Approx(14900.0));
+    QTableWidget* checks = resistors->checks();
+    REQUIRE(checks->rowCount() == 2);
+    QStringList verdicts;
+    for (int row = 0; row < 2; ++row) {
+        verdicts << checks->item(row, checks->columnCount() - 1)->text();
+    }
+    CHECK(verdicts.filter(QStringLiteral("within ±1")).size() == 1); // 1 % resistor, the default
+    CHECK(verdicts.filter(QStringLiteral("outside ±1")).size() == 1);
+
+    mw::gui::NotesPanel* notes = bench.window.bench()->notes();
+    REQUIRE(notes->addNote(QStringLiteral("Zero reset; span trimmed by 50 Ω."), &message));
+    CHECK_FALSE(notes->addNote(QStringLiteral("   "), &message));
+    REQUIRE(bench.stored().adjustments.size() == 1);
+    CHECK(notes->notes()->count() == 1);
+    CHECK(notes->notes()->item(0)->text().contains(QStringLiteral("span trimmed")));
+    bench.window.workspace().undoStack()->undo();
+    CHECK(bench.stored().adjustments.empty());
+    CHECK(notes->notes()->count() == 0);
+
+    // The log says what was saved: typing a reading adds a line naming it.
+    bench.grid()->setCurrentIndex(bench.model()->index(1, ReadingGridModel::Indicated));
+    mwtest::typeInto(bench.grid(), QStringLiteral("3.02"));
+    QTableWidget* log = bench.window.bench()->log()->table();
+    QStringList lines;
+    for (int row = 0; row < log->rowCount(); ++row) {
+        for (int column = 0; column < log->columnCount(); ++column) {
+            if (log->item(row, column) != nullptr) {
+                lines << log->item(row, column)->text();
+            }
+        }
+    }
+    CHECK(lines.filter(QStringLiteral("reading added: point 2")).size() == 1);
+    CHECK(lines.filter(QStringLiteral("tess")).size() > 0);
+}
+
+TEST_CASE("the chart draws the engine's series, follows the palette and exports PNG and SVG") {
+    Bench bench;
+    bench.start("CFM-402", mw::PhasePlan::AsFound, mw::DecisionRule::GuardedAcceptance, 1.0);
+    bench.typeColumn([](double applied) { return 0.01 * applied - 0.05; });
+    mw::gui::SessionChartView* chart = bench.window.bench()->chart();
+    const mw::SessionEvaluation evaluation = mw::evaluateSession(
+        bench.instrument("CFM-402"), bench.stored(), bench.window.bench()->bench()->inputs());
+    const mw::RangeChart expected = mw::rangeChart(
+        bench.instrument("CFM-402"), bench.stored(), bench.window.bench()->bench()->inputs(),
+        evaluation, bench.instrument("CFM-402").ranges.front().id);
+    // The class limit line sits at the engine's limit, and the bridge rectifier's predicted
+    // curve is drawn (the range records its diodes).
+    const QList<QPointF> limit = chart->seriesPoints(QStringLiteral("Class limit"));
+    REQUIRE_FALSE(limit.isEmpty());
+    CHECK(limit.front().y() == Approx(expected.limitPercent));
+    REQUIRE(expected.predicted);
+    CHECK(chart->seriesPoints(QStringLiteral("Diode model")).size() ==
+          qsizetype(expected.predicted->points.size()));
+    CHECK(chart->seriesPoints(QStringLiteral("Guard band")).size() > 0);
+    std::size_t marks = 0;
+    for (const mw::ChartSeries& series : expected.series) {
+        marks += series.marks.size();
+    }
+    CHECK(qsizetype(marks) == chart->seriesPoints(QStringLiteral("As-found ▲")).size() +
+                                  chart->seriesPoints(QStringLiteral("As-found ▼")).size());
+
+    const QPalette light = QApplication::palette();
+    QPalette dark = light;
+    dark.setColor(QPalette::Window, QColor(0x20, 0x20, 0x24));
+    dark.setColor(QPalette::WindowText, QColor(0xee, 0xee, 0xee));
+    dark.setColor(QPalette::Base, QColor(0x18, 0x18, 0x1c));
+    dark.setColor(QPalette::Text, QColor(0xee, 0xee, 0xee));
+    QApplication::setPalette(dark);
+    QApplication::processEvents();
+    CHECK(chart->chart()->theme() == QChart::ChartThemeDark);
+    QApplication::setPalette(light);
+    QApplication::processEvents();
+    CHECK(chart->chart()->theme() == QChart::ChartThemeLight);
+
+    QTemporaryDir dir;
+    QString error;
+    REQUIRE(chart->exportTo(dir.filePath(QStringLiteral("chart.png")), &error));
+    CHECK_FALSE(QImage(dir.filePath(QStringLiteral("chart.png"))).isNull());
+    REQUIRE(chart->exportTo(dir.filePath(QStringLiteral("chart.svg")), &error));
+    QFile svg(dir.filePath(QStringLiteral("chart.svg")));
+    REQUIRE(svg.open(QIODevice::ReadOnly));
+    CHECK(svg.readAll().contains("<svg"));
+    CHECK_FALSE(chart->exportTo(QStringLiteral("/nonexistent/dir/chart.png"), &error));
+    CHECK(error.contains(QStringLiteral("cannot be written")));
 }
 
 TEST_CASE("submit names the readings still missing and the workbook's refusals") {

@@ -62,6 +62,7 @@ public:
     AdvicePanel* advice() const { return advice_; }
     ResistorPanel* resistors() const { return resistors_; }
     NotesPanel* notes() const { return notes_; }
+    SessionLogPanel* log() const { return log_; }
     QString overallText() const;
     QString statementText() const;
     QString cautionText() const;
