@@ -30,6 +30,13 @@ struct RemovedPoint {
     std::vector<Reading> readings;
 };
 
+// A calibration not yet approved (draft, returned or submitted), without its contents.
+struct OpenSession {
+    std::int64_t id = 0;
+    std::int64_t instrument_id = 0;
+    SessionState state = SessionState::Draft;
+};
+
 class SessionRepository {
 public:
     explicit SessionRepository(Workbook& workbook)
@@ -81,6 +88,9 @@ public:
     std::vector<CalibrationSession> historyOf(std::int64_t instrumentId) const;
     // Sessions in one state with all they hold, oldest first (e.g. the review queue).
     std::vector<CalibrationSession> withState(SessionState state) const;
+    // Every calibration not yet approved, oldest first, of one instrument or of all; reads no
+    // readings, so the register stays quick however large the workbook grows.
+    std::vector<OpenSession> openSessions(std::optional<std::int64_t> instrumentId = {}) const;
     std::int64_t readingCount() const;
 
     // draft/returned -> submitted: checks that every reading the plan asks for is there,

@@ -112,12 +112,9 @@ void RegisterPage::reload() {
     const storage::InstrumentRepository instruments(workbook);
     const auto today = std::chrono::floor<std::chrono::days>(std::chrono::system_clock::now());
     OpenCalibrations open;
-    const storage::SessionRepository sessions(workbook);
-    for (const SessionState state :
-         {SessionState::Draft, SessionState::Returned, SessionState::Submitted}) {
-        for (const CalibrationSession& session : sessions.withState(state)) {
-            open[session.instrument_id] = state;
-        }
+    for (const storage::OpenSession& session :
+         storage::SessionRepository(workbook).openSessions()) {
+        open[session.instrument_id] = session.state;
     }
     model_->setRows(buildRegisterRows(instruments.all(), instruments.dueList(), open, today));
     detail_->showInstrument(std::nullopt);
@@ -146,15 +143,8 @@ std::optional<std::int64_t> RegisterPage::openSessionOfSelected() const {
     if (!instrument || !workspace_.isOpen()) {
         return std::nullopt;
     }
-    std::optional<std::int64_t> found;
-    for (const CalibrationSession& session :
-         storage::SessionRepository(*workspace_.workbook()).historyOf(*instrument)) {
-        if (session.state == SessionState::Draft || session.state == SessionState::Returned ||
-            session.state == SessionState::Submitted) {
-            found = session.id;
-        }
-    }
-    return found;
+    const auto open = storage::SessionRepository(*workspace_.workbook()).openSessions(*instrument);
+    return open.empty() ? std::nullopt : std::optional(open.back().id);
 }
 
 bool RegisterPage::selectByTag(const QString& tag) {

@@ -99,6 +99,16 @@ TEST_CASE("history and state lists load whole sessions, oldest first", "[session
     REQUIRE(queue.size() == 1);
     CHECK(queue[0].id == later.id);
     CHECK(sessions.historyOf(seed.instrument.id + 1000).empty());
+    // The register's quick list: not yet approved, oldest first, without contents.
+    const auto open = sessions.openSessions();
+    REQUIRE(open.size() == 2);
+    CHECK(open[0].id == earlier.id);
+    CHECK(open[0].state == SessionState::Draft);
+    CHECK(open[1].id == later.id);
+    CHECK(open[1].state == SessionState::Submitted);
+    CHECK(open[1].instrument_id == seed.instrument.id);
+    CHECK(sessions.openSessions(seed.instrument.id).size() == 2);
+    CHECK(sessions.openSessions(seed.instrument.id + 1000).empty());
 }
 
 TEST_CASE("the review workflow: submit, return, reopen, approve, amend", "[session]") {
