@@ -24,5 +24,7 @@ std::vector<Command> evaluationCalcCommands(); // calc_evaluate.cpp: coverage, e
 
 // Top-level workbook commands (workbook_commands.cpp): demo, verify, ...
 std::vector<Command> workbookCommands();
+// people_commands.cpp: new (a lab's first workbook), user add|disable|passwd.
+std::vector<Command> peopleCommands();
 
 } // namespace mw::cli

@@ -127,7 +127,7 @@ int runUpgrade(const QStringList& arguments) {
 
 std::vector<Command> workbookCommands() {
     // One entry per command; each command's code lives above (or in its own file).
-    return {
+    std::vector<Command> commands{
         demoCommand(),
         {QStringLiteral("verify"),
          QStringLiteral("check a workbook's integrity and the digest chain of approved records"),
@@ -139,6 +139,10 @@ std::vector<Command> workbookCommands() {
         backupCommand(),
         restoreCommand(),
     };
+    for (Command& command : peopleCommands()) {
+        commands.push_back(std::move(command));
+    }
+    return commands;
 }
 
 } // namespace mw::cli

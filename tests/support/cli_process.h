@@ -49,6 +49,18 @@ inline CliResult runMeterwrightIn(const QProcessEnvironment& environment,
     return {process.exitCode(), process.readAllStandardOutput(), process.readAllStandardError()};
 }
 
+// Runs with `input` piped to standard input (then closed), in this test's own environment.
+inline CliResult runMeterwrightWithInput(const QStringList& arguments, const QByteArray& input) {
+    QProcess process;
+    process.start(QStringLiteral(MW_BINARY_DIR "/app/meterwright"), arguments);
+    REQUIRE(process.waitForStarted(kCliTimeoutMs));
+    process.write(input);
+    process.closeWriteChannel();
+    REQUIRE(process.waitForFinished(kCliTimeoutMs));
+    REQUIRE(process.exitStatus() == QProcess::NormalExit);
+    return {process.exitCode(), process.readAllStandardOutput(), process.readAllStandardError()};
+}
+
 // The same in this test's own environment.
 inline CliResult runMeterwright(const QStringList& arguments, int timeoutMs = kCliTimeoutMs) {
     return runMeterwrightIn(QProcessEnvironment::systemEnvironment(), arguments, timeoutMs);
