@@ -50,11 +50,14 @@ int runGui(int argc, char* argv[]) {
     MainWindow window;
     window.show();
     const QStringList arguments = QApplication::arguments();
+    // Asks who is working once the window is up; closes the workbook if nobody signs in.
     if (arguments.size() > 1) {
-        // Asks who is working once the window is up; closes the workbook if nobody signs in.
         QMetaObject::invokeMethod(
             &window, [&window, path = arguments.at(1)] { window.openAndSignIn(path); },
             Qt::QueuedConnection);
+    } else {
+        QMetaObject::invokeMethod(
+            &window, [&window] { window.openLastWorkbook(); }, Qt::QueuedConnection);
     }
     return QApplication::exec();
 }

@@ -6,6 +6,7 @@
 #include "app/gui/bench/session_chart_view.h"
 #include "app/gui/bench/session_setup_dialog.h"
 #include "app/gui/instrument_list_model.h"
+#include "app/gui/recent_workbooks.h"
 #include "app/gui/register_page.h"
 #include "app/gui/sign_in_dialog.h"
 #include "app/gui/workspace.h"
@@ -108,12 +109,21 @@ BenchView* MainWindow::bench() {
 
 void MainWindow::buildMenus() {
     QMenu* workbookMenu = menuBar()->addMenu(tr("&Workbook"));
+    QAction* create = workbookMenu->addAction(tr("&New…"));
+    create->setShortcut(QKeySequence::New);
+    connect(create, &QAction::triggered, this, &MainWindow::askForNewWorkbook);
     QAction* open = workbookMenu->addAction(tr("&Open…"));
     open->setShortcut(QKeySequence::Open);
     connect(open, &QAction::triggered, this, &MainWindow::chooseWorkbook);
+    recentMenu_ = workbookMenu->addMenu(tr("Open &recent"));
+    fillRecentMenu();
     QAction* backup = workbookMenu->addAction(tr("&Back up now…"));
     connect(backup, &QAction::triggered, this, &MainWindow::backUpNow);
     workbookMenu->addSeparator();
+    peopleAction_ = workbookMenu->addAction(tr("P&eople…"));
+    connect(peopleAction_, &QAction::triggered, this, &MainWindow::showPeople);
+    ownPasswordAction_ = workbookMenu->addAction(tr("&Change my password…"));
+    connect(ownPasswordAction_, &QAction::triggered, this, &MainWindow::changeOwnPassword);
     QAction* switchPerson = workbookMenu->addAction(tr("Sign in as another &person…"));
     connect(switchPerson, &QAction::triggered, this, &MainWindow::promptSignIn);
     signOutAction_ = workbookMenu->addAction(tr("Sign &out"));
@@ -184,6 +194,8 @@ void MainWindow::updateForPerson() {
                      : workspace_->isOpen() ? tr("Nobody signed in")
                                             : QString());
     signOutAction_->setEnabled(user.has_value());
+    ownPasswordAction_->setEnabled(user.has_value());
+    peopleAction_->setEnabled(workspace_->can(Capability::Administer));
     startAction_->setEnabled(workspace_->can(Capability::Calibrate));
     // What the register offers depends on the person; what it lists does not.
     register_->updateActions();
@@ -229,6 +241,8 @@ bool MainWindow::openWorkbook(const QString& path, QString* error) {
                       .arg(QFileInfo(workspace_->workbook()->upgradeBackupPath()).fileName());
     }
     statusBar()->showMessage(status);
+    RecentWorkbooks(settings_).remember(path);
+    fillRecentMenu();
     workspace_->startAutomaticBackup();
     updateForPerson();
     return true;

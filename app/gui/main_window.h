@@ -6,6 +6,7 @@
 #include "app/gui/sign_in_throttle.h"
 
 #include <QMainWindow>
+#include <QSettings>
 
 #include <memory>
 #include <optional>
@@ -55,6 +56,11 @@ public:
     bool openCalibration(std::int64_t sessionId, QString* error);
     void showRegister();
     void showBench();
+    // Opens the workbook opened last, if it still exists, asking who is working (on start).
+    void openLastWorkbook();
+    // Writes a new workbook as `dialog`-like fields say and opens it signed in as its
+    // administrator (NewWorkbookDialog::create() has written it).
+    bool openNewWorkbook(const QString& path, const QString& login, const QString& password);
 
 public slots:
     void showAbout();
@@ -62,6 +68,9 @@ public slots:
     void backUpNow();
     void promptSignIn();
     void signOut();
+    void askForNewWorkbook();
+    void showPeople();
+    void changeOwnPassword();
 
 protected:
     void closeEvent(QCloseEvent* event) override;
@@ -77,6 +86,7 @@ private:
     void askToSubmit();
     void exportChart();
     void report(const QString& text);
+    void fillRecentMenu();
 
     std::unique_ptr<Workspace> workspace_;
     SignInThrottle throttle_;
@@ -87,6 +97,10 @@ private:
     QAction* benchAction_ = nullptr;
     QAction* startAction_ = nullptr;
     QAction* signOutAction_ = nullptr;
+    QAction* peopleAction_ = nullptr;
+    QAction* ownPasswordAction_ = nullptr;
+    QMenu* recentMenu_ = nullptr;
+    QSettings settings_;
     QLabel* person_ = nullptr;
     QProgressBar* busy_ = nullptr;
 };

@@ -4,6 +4,8 @@
 #include <catch2/catch.hpp>
 
 #include <QApplication>
+#include <QFile>
+#include <QTemporaryDir>
 
 #include <cstdlib>
 
@@ -11,6 +13,9 @@ int main(int argc, char* argv[]) {
     if (std::getenv("QT_QPA_PLATFORM") == nullptr) {
         setenv("QT_QPA_PLATFORM", "offscreen", 1);
     }
+    // The window keeps recent workbooks in the user's settings: tests keep theirs apart.
+    const QTemporaryDir config;
+    setenv("XDG_CONFIG_HOME", QFile::encodeName(config.path()).constData(), 1);
     QApplication app(argc, argv);
     return Catch::Session().run(argc, argv);
 }

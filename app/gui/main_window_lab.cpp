@@ -1,0 +1,82 @@
+// The main window's actions on the workbook itself and its people: a new workbook, the recent
+// ones, the people dialog and changing one's own password.
+#include "app/gui/admin/new_workbook_dialog.h"
+#include "app/gui/admin/people_dialog.h"
+#include "app/gui/main_window.h"
+#include "app/gui/recent_workbooks.h"
+#include "app/gui/workspace.h"
+
+#include <QFileInfo>
+#include <QMenu>
+#include <QMessageBox>
+
+namespace mw::gui {
+
+void MainWindow::fillRecentMenu() {
+    recentMenu_->clear();
+    const QStringList recent = RecentWorkbooks(settings_).list();
+    for (const QString& path : recent) {
+        QAction* action = recentMenu_->addAction(QFileInfo(path).fileName());
+        action->setToolTip(path);
+        action->setStatusTip(path);
+        connect(action, &QAction::triggered, this, [this, path] { openAndSignIn(path); });
+    }
+    recentMenu_->setEnabled(!recent.isEmpty());
+}
+
+void MainWindow::openLastWorkbook() {
+    const QStringList recent = RecentWorkbooks(settings_).list();
+    if (!recent.isEmpty()) {
+        openAndSignIn(recent.front());
+    }
+}
+
+void MainWindow::askForNewWorkbook() {
+    NewWorkbookDialog dialog(this);
+    if (dialog.exec() != QDialog::Accepted) {
+        return;
+    }
+    if (!openNewWorkbook(dialog.path(), dialog.login(), dialog.password())) {
+        QMessageBox::warning(
+            this, tr("New workbook"),
+            tr("The workbook %1 was written but could not be opened.").arg(dialog.path()));
+    }
+}
+
+bool MainWindow::openNewWorkbook(const QString& path, const QString& login,
+                                 const QString& password) {
+    QString error;
+    if (!openWorkbook(path, &error)) {
+        report(error);
+        return false;
+    }
+    if (!signIn(login, password)) {
+        return false;
+    }
+    report(tr("New workbook %1: add the reference standards, the instruments and the people "
+              "who work with them.")
+               .arg(QFileInfo(path).fileName()));
+    return true;
+}
+
+void MainWindow::showPeople() {
+    if (!workspace_->can(Capability::Administer)) {
+        report(tr("Only an administrator manages people."));
+        return;
+    }
+    PeopleDialog dialog(*workspace_, this);
+    dialog.exec();
+}
+
+void MainWindow::changeOwnPassword() {
+    if (!workspace_->user()) {
+        report(tr("Sign in first."));
+        return;
+    }
+    OwnPasswordDialog dialog(*workspace_, this);
+    if (dialog.exec() == QDialog::Accepted) {
+        report(tr("Your password is changed."));
+    }
+}
+
+} // namespace mw::gui
