@@ -11,6 +11,7 @@
 
 #include <QString>
 
+#include <map>
 #include <optional>
 #include <vector>
 
@@ -91,6 +92,12 @@ public:
     // Every calibration not yet approved, oldest first, of one instrument or of all; reads no
     // readings, so the register stays quick however large the workbook grows.
     std::vector<OpenSession> openSessions(std::optional<std::int64_t> instrumentId = {}) const;
+    // True when an approved (or superseded) record refers to the instrument: its identity,
+    // movement, scale, class and range limits are then frozen by the database.
+    bool hasApprovedRecords(std::int64_t instrumentId) const;
+    // The outcome of each instrument's latest approved record (by instrument id); instruments
+    // without one are absent.
+    std::map<std::int64_t, Outcome> latestApprovedOutcomes() const;
     std::int64_t readingCount() const;
 
     // draft/returned -> submitted: checks that every reading the plan asks for is there,

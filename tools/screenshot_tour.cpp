@@ -2,6 +2,8 @@
 // in as the demo's people, walks through the screens as a technician and a reviewer would, and
 // writes what each shows to PNG files.
 // Usage: meterwright_tour OUTPUT_FOLDER [WORKBOOK]   (a new demo workbook when none is given)
+#include "app/gui/admin/instrument_editor.h"
+#include "app/gui/admin/range_table.h"
 #include "app/gui/bench/bench_view.h"
 #include "app/gui/bench/reading_grid_model.h"
 #include "app/gui/bench/reading_grid_view.h"
@@ -17,7 +19,9 @@
 #include "tests/support/keyboard.h"
 
 #include <QApplication>
+#include <QComboBox>
 #include <QDir>
+#include <QLineEdit>
 #include <QTabWidget>
 #include <QTemporaryDir>
 #include <QTest>
@@ -143,6 +147,38 @@ int main(int argc, char* argv[]) {
             mwtest::typeInto(grid, QString::number(applied + offset, 'f', 3));
         }
         save(window, folder, QStringLiteral("bench-guarded.png"));
+    }
+
+    // The administrator's instrument editor, a value refused beside its field.
+    if (window.signIn(QStringLiteral("morgan"), QStringLiteral("demo-admin"))) {
+        mw::gui::InstrumentEditor editor(window.workspace(), std::nullopt, &window);
+        editor.show();
+        const auto set = [&editor](const char* name, const QString& text) {
+            if (auto* line = editor.findChild<QLineEdit*>(QLatin1String(name))) {
+                line->setText(text);
+            }
+        };
+        set("asset_tag", QStringLiteral("CFM-601"));
+        set("description", QStringLiteral("Panel voltmeter, 0-30 V DC"));
+        set("manufacturer", QStringLiteral("Vennmoor Instruments"));
+        set("model", QStringLiteral("P72-V"));
+        set("serial", QStringLiteral("V72-2210"));
+        set("location", QStringLiteral("Bench 2 test rack"));
+        set("owner", QStringLiteral("Shop test bench"));
+        set("movement_amps_fs", QStringLiteral("1 mA"));
+        set("movement_ohms", QStringLiteral("100"));
+        if (auto* accuracy = editor.findChild<QComboBox*>(QStringLiteral("accuracy_class"))) {
+            accuracy->setCurrentText(QStringLiteral("1.2"));
+        }
+        mw::gui::RangeTable* ranges = editor.ranges();
+        ranges->item(0, mw::gui::RangeTable::Label)->setText(QStringLiteral("30 V"));
+        ranges->item(0, mw::gui::RangeTable::FullScale)->setText(QStringLiteral("30"));
+        ranges->item(0, mw::gui::RangeTable::Resistor)->setText(QStringLiteral("29k9"));
+        ranges->addRange(mw::Unit::Volt);
+        ranges->item(1, mw::gui::RangeTable::Label)->setText(QStringLiteral("50 mV"));
+        ranges->item(1, mw::gui::RangeTable::FullScale)->setText(QStringLiteral("50 mV"));
+        ranges->resizeColumnsToContents();
+        save(editor, folder, QStringLiteral("instrument-editor.png"));
     }
     return 0;
 }

@@ -1,6 +1,8 @@
 // Thin table model over the instruments of the open workbook.
 #include "app/gui/instrument_list_model.h"
 
+#include <limits>
+
 #include <QIcon>
 
 namespace mw::gui {
@@ -30,8 +32,24 @@ QVariant InstrumentListModel::data(const QModelIndex& index, int role) const {
     if (role == Qt::DecorationRole && index.column() == Due && row.attention) {
         return QIcon(QStringLiteral(":/icons/attention.svg"));
     }
-    if (role == Qt::UserRole) {
+    switch (role) {
+    case Qt::UserRole:
         return QVariant::fromValue<qlonglong>(row.instrumentId);
+    case KindRole:
+        return int(row.kindValue);
+    case DueStateRole:
+        return int(row.dueState);
+    case OutcomeRole:
+        return row.lastOutcomeValue ? QVariant(int(*row.lastOutcomeValue)) : QVariant();
+    case LocationRole:
+        return row.location;
+    case SearchTextRole:
+        return QStringList{row.assetTag, row.description, row.location, row.kind}.join(
+            QLatin1Char(' '));
+    case SortRole:
+        return sortValue(row, index.column());
+    default:
+        break;
     }
     // The whole text as a tooltip, since narrow columns elide it.
     if (role != Qt::DisplayRole && role != Qt::ToolTipRole) {
@@ -44,12 +62,41 @@ QVariant InstrumentListModel::data(const QModelIndex& index, int role) const {
         return row.description;
     case Kind:
         return row.kind;
+    case Location:
+        return row.location;
     case Status:
         return row.status;
     case Due:
         return row.due;
+    case LastOutcome:
+        return row.lastOutcome;
     default:
         return {};
+    }
+}
+
+QVariant InstrumentListModel::sortValue(const InstrumentRow& row, int column) {
+    switch (column) {
+    case Due:
+        // Overdue and never calibrated first, then by date; retired last.
+        if (row.dueState == DueState::Retired) {
+            return std::numeric_limits<qlonglong>::max();
+        }
+        return row.dueDate ? qlonglong(row.dueDate->time_since_epoch().count())
+                           : std::numeric_limits<qlonglong>::min();
+    case LastOutcome:
+        // Worst first: fail, conditional fail, conditional pass, pass; never approved last.
+        return row.lastOutcomeValue ? 3 - int(*row.lastOutcomeValue) : 4; // Outcome runs pass..fail
+    case Kind:
+        return row.kind;
+    case Location:
+        return row.location;
+    case Status:
+        return row.status;
+    case Description:
+        return row.description;
+    default:
+        return row.assetTag;
     }
 }
 
@@ -64,10 +111,14 @@ QVariant InstrumentListModel::headerData(int section, Qt::Orientation orientatio
         return tr("Description");
     case Kind:
         return tr("Kind");
+    case Location:
+        return tr("Location");
     case Status:
         return tr("Status");
     case Due:
         return tr("Calibration due");
+    case LastOutcome:
+        return tr("Last outcome");
     default:
         return {};
     }

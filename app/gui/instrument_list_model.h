@@ -1,29 +1,53 @@
 // Thin table model over the instruments of the open workbook: reads rows, formats cells.
 #pragma once
 
+#include "core/model/vocabulary.h"
+
 #include <QAbstractTableModel>
 #include <QString>
 
+#include <chrono>
 #include <cstdint>
+#include <optional>
 #include <vector>
 
 namespace mw::gui {
 
-// One row as the register shows it; filled from the workbook by the window's controller.
+// Where an instrument stands against its calibration interval (computed, never stored).
+enum class DueState { Overdue, NeverCalibrated, DueSoon, InDate, Retired };
+
+// One row as the register shows it; filled from the workbook by the window's controller. The
+// raw values (for sorting and filtering) sit beside the words shown.
 struct InstrumentRow {
     std::int64_t instrumentId = 0;
     QString assetTag;
     QString description;
     QString kind;
+    QString location;
     QString status;
     QString due;
+    QString lastOutcome;    // "—" when never approved
     bool attention = false; // overdue or never calibrated: shown with a caution icon
+    InstrumentKind kindValue = InstrumentKind::DcVoltmeter;
+    DueState dueState = DueState::InDate;
+    std::optional<std::chrono::sys_days> dueDate;
+    std::optional<Outcome> lastOutcomeValue;
 };
 
 class InstrumentListModel : public QAbstractTableModel {
     Q_OBJECT
 public:
-    enum Column { AssetTag, Description, Kind, Status, Due, ColumnCount };
+    enum Column { AssetTag, Description, Kind, Location, Status, Due, LastOutcome, ColumnCount };
+    // Raw values: SortRole orders a column by what it means (dates as dates, outcomes worst
+    // first); the others serve the register's filters.
+    enum Role {
+        SortRole = Qt::UserRole + 1,
+        KindRole,
+        DueStateRole,
+        OutcomeRole,
+        LocationRole,
+        SearchTextRole
+    };
 
     explicit InstrumentListModel(QObject* parent = nullptr);
 
@@ -37,6 +61,8 @@ public:
                         int role = Qt::DisplayRole) const override;
 
 private:
+    static QVariant sortValue(const InstrumentRow& row, int column);
+
     std::vector<InstrumentRow> rows_;
 };
 

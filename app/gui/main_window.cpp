@@ -93,6 +93,7 @@ void MainWindow::buildPages() {
         }
     });
     connect(register_, &RegisterPage::statusMessage, this, &MainWindow::report);
+    connect(register_, &RegisterPage::editRequested, this, &MainWindow::editInstrument);
 }
 
 BenchView* MainWindow::bench() {

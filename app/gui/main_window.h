@@ -71,6 +71,8 @@ public slots:
     void askForNewWorkbook();
     void showPeople();
     void changeOwnPassword();
+    // Opens the instrument editor (nullopt: a new instrument); the register follows the save.
+    void editInstrument(std::optional<std::int64_t> instrumentId);
 
 protected:
     void closeEvent(QCloseEvent* event) override;

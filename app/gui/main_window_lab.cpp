@@ -1,10 +1,13 @@
 // The main window's actions on the workbook itself and its people: a new workbook, the recent
 // ones, the people dialog and changing one's own password.
+#include "app/gui/admin/instrument_editor.h"
 #include "app/gui/admin/new_workbook_dialog.h"
 #include "app/gui/admin/people_dialog.h"
 #include "app/gui/main_window.h"
 #include "app/gui/recent_workbooks.h"
+#include "app/gui/register_page.h"
 #include "app/gui/workspace.h"
+#include "storage/instrument_repository.h"
 
 #include <QFileInfo>
 #include <QMenu>
@@ -76,6 +79,23 @@ void MainWindow::changeOwnPassword() {
     OwnPasswordDialog dialog(*workspace_, this);
     if (dialog.exec() == QDialog::Accepted) {
         report(tr("Your password is changed."));
+    }
+}
+
+void MainWindow::editInstrument(std::optional<std::int64_t> instrumentId) {
+    try {
+        std::optional<Instrument> instrument;
+        if (instrumentId) {
+            instrument = storage::InstrumentRepository(*workspace_->workbook()).find(*instrumentId);
+        }
+        InstrumentEditor editor(*workspace_, instrument, this);
+        if (editor.exec() == QDialog::Accepted) {
+            reloadRegisterQuietly();
+            register_->selectInstrument(editor.savedId());
+            report(tr("Instrument saved."));
+        }
+    } catch (const std::exception& error) {
+        QMessageBox::warning(this, tr("Instrument"), QString::fromUtf8(error.what()));
     }
 }
 

@@ -38,7 +38,9 @@ QString openCalibrationNote(SessionState state) {
 std::vector<InstrumentRow> buildRegisterRows(const std::vector<Instrument>& instruments,
                                              const std::vector<storage::DueItem>& dueList,
                                              const OpenCalibrations& open,
-                                             std::chrono::sys_days today) {
+                                             std::chrono::sys_days today,
+                                             const std::map<std::int64_t, Outcome>& lastOutcomes,
+                                             int dueSoonDays) {
     std::map<std::int64_t, const storage::DueItem*> dueById;
     for (const storage::DueItem& item : dueList) {
         dueById[item.instrument_id] = &item;
@@ -51,18 +53,38 @@ std::vector<InstrumentRow> buildRegisterRows(const std::vector<Instrument>& inst
         row.assetTag = QString::fromStdString(instrument.asset_tag);
         row.description = QString::fromStdString(instrument.description);
         row.kind = toQString(displayName(instrument.kind));
+        row.kindValue = instrument.kind;
+        row.location = QString::fromStdString(instrument.location);
         row.status = toQString(displayName(instrument.status));
         const auto found = dueById.find(instrument.id);
+        if (found != dueById.end()) {
+            row.dueDate = found->second->due_date;
+        }
         if (instrument.status == InstrumentStatus::Retired) {
             row.due = QStringLiteral("—");
-        } else if (found == dueById.end() || !found->second->due_date) {
+            row.dueState = DueState::Retired;
+        } else if (!row.dueDate) {
             row.due = QStringLiteral("Never calibrated");
+            row.dueState = DueState::NeverCalibrated;
             row.attention = true;
-        } else if (*found->second->due_date < today) {
-            row.due = QStringLiteral("Overdue since %1").arg(isoDate(*found->second->due_date));
+        } else if (*row.dueDate < today) {
+            row.due = QStringLiteral("Overdue since %1").arg(isoDate(*row.dueDate));
+            row.dueState = DueState::Overdue;
             row.attention = true;
         } else {
-            row.due = isoDate(*found->second->due_date);
+            row.due = isoDate(*row.dueDate);
+            row.dueState = *row.dueDate <= today + std::chrono::days(dueSoonDays)
+                               ? DueState::DueSoon
+                               : DueState::InDate;
+            if (row.dueState == DueState::DueSoon) {
+                row.due += QStringLiteral(" (due soon)");
+            }
+        }
+        if (const auto outcome = lastOutcomes.find(instrument.id); outcome != lastOutcomes.end()) {
+            row.lastOutcomeValue = outcome->second;
+            row.lastOutcome = toQString(displayName(outcome->second));
+        } else {
+            row.lastOutcome = QStringLiteral("—");
         }
         if (const auto pending = open.find(instrument.id); pending != open.end()) {
             row.due += QStringLiteral(" · ") + openCalibrationNote(pending->second);

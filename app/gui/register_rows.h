@@ -18,9 +18,12 @@ using OpenCalibrations = std::map<std::int64_t, SessionState>;
 // One row per instrument, in the order given; the due column says "Never calibrated",
 // "Overdue since …" or the due date, and what an open calibration is waiting for, so status
 // never rests on colour alone.
-std::vector<InstrumentRow> buildRegisterRows(const std::vector<Instrument>& instruments,
-                                             const std::vector<storage::DueItem>& dueList,
-                                             const OpenCalibrations& open,
-                                             std::chrono::sys_days today);
+// `lastOutcomes`: each instrument's latest approved outcome; an instrument due within
+// `dueSoonDays` of `today` is due soon.
+std::vector<InstrumentRow>
+buildRegisterRows(const std::vector<Instrument>& instruments,
+                  const std::vector<storage::DueItem>& dueList, const OpenCalibrations& open,
+                  std::chrono::sys_days today,
+                  const std::map<std::int64_t, Outcome>& lastOutcomes = {}, int dueSoonDays = 30);
 
 } // namespace mw::gui

@@ -53,10 +53,12 @@ TEST_CASE("main window opens with a menu bar, an empty register and a status bar
 TEST_CASE("register switches from the empty state to the list when rows arrive") {
     MainWindow window;
     window.show();
-    window.instrumentModel()->setRows(
-        {{1, QStringLiteral("T-001"), QStringLiteral("Panel voltmeter"),
-          QStringLiteral("DC voltmeter"), QStringLiteral("In service"),
-          QStringLiteral("2027-03-01")}});
+    mw::gui::InstrumentRow row;
+    row.instrumentId = 1;
+    row.assetTag = QStringLiteral("T-001");
+    row.description = QStringLiteral("Panel voltmeter");
+    row.due = QStringLiteral("2027-03-01");
+    window.instrumentModel()->setRows({row});
     auto* list = window.findChild<QTableView*>(QStringLiteral("instrumentList"));
     REQUIRE(list != nullptr);
     CHECK(list->isVisible());
@@ -66,8 +68,10 @@ TEST_CASE("register switches from the empty state to the list when rows arrive")
 TEST_CASE("instrument list model satisfies the Qt model contract") {
     mw::gui::InstrumentListModel model;
     QAbstractItemModelTester tester(&model, QAbstractItemModelTester::FailureReportingMode::Fatal);
-    model.setRows({{1, QStringLiteral("A"), QStringLiteral("B"), QStringLiteral("C"),
-                    QStringLiteral("D"), QStringLiteral("E")}});
+    mw::gui::InstrumentRow row;
+    row.instrumentId = 1;
+    row.assetTag = QStringLiteral("A");
+    model.setRows({row});
     CHECK(model.rowCount() == 1);
     CHECK(model.columnCount() == mw::gui::InstrumentListModel::ColumnCount);
     CHECK(model.headerData(0, Qt::Horizontal).toString() == QStringLiteral("Asset tag"));

@@ -56,8 +56,28 @@ TEST_CASE("an instrument due today is not overdue") {
     const auto rows = mw::gui::buildRegisterRows({instrument(1, "A", InstrumentStatus::InService)},
                                                  {dueToday}, {}, today);
     REQUIRE(rows.size() == 1);
-    CHECK(rows[0].due == QStringLiteral("2026-12-01"));
+    CHECK(rows[0].due == QStringLiteral("2026-12-01 (due soon)"));
+    CHECK(rows[0].dueState == mw::gui::DueState::DueSoon);
     CHECK_FALSE(rows[0].attention);
+}
+
+TEST_CASE("due soon follows the lab's window; the last approved outcome is shown") {
+    const sys_days today = sys_days{2026y / December / 1};
+    DueItem inFortyDays;
+    inFortyDays.instrument_id = 1;
+    inFortyDays.due_date = today + std::chrono::days(40);
+    const std::map<std::int64_t, mw::Outcome> outcomes{{1, mw::Outcome::ConditionalPass}};
+    auto rows = mw::gui::buildRegisterRows({instrument(1, "A", InstrumentStatus::InService),
+                                            instrument(2, "B", InstrumentStatus::InService)},
+                                           {inFortyDays}, {}, today, outcomes, 30);
+    CHECK(rows[0].dueState == mw::gui::DueState::InDate);
+    CHECK(rows[0].lastOutcome == QStringLiteral("Conditional pass"));
+    CHECK(rows[0].lastOutcomeValue == mw::Outcome::ConditionalPass);
+    CHECK(rows[1].lastOutcome == QStringLiteral("—"));
+    CHECK_FALSE(rows[1].lastOutcomeValue);
+    rows = mw::gui::buildRegisterRows({instrument(1, "A", InstrumentStatus::InService)},
+                                      {inFortyDays}, {}, today, outcomes, 45);
+    CHECK(rows[0].dueState == mw::gui::DueState::DueSoon);
 }
 
 TEST_CASE("an open calibration says what it is waiting for beside the due state") {

@@ -109,6 +109,7 @@ TEST_CASE("history and state lists load whole sessions, oldest first", "[session
     CHECK(open[1].instrument_id == seed.instrument.id);
     CHECK(sessions.openSessions(seed.instrument.id).size() == 2);
     CHECK(sessions.openSessions(seed.instrument.id + 1000).empty());
+    CHECK_FALSE(sessions.hasApprovedRecords(seed.instrument.id)); // submitted is not approved
 }
 
 TEST_CASE("the review workflow: submit, return, reopen, approve, amend", "[session]") {
@@ -141,8 +142,13 @@ TEST_CASE("the review workflow: submit, return, reopen, approve, amend", "[sessi
     } catch (const WorkbookError& error) {
         CHECK(error.kind() == WorkbookError::Kind::RuleViolation);
     }
+    CHECK_FALSE(sessions.hasApprovedRecords(seed.instrument.id));
     const QString digest = sessions.approve(session.id, seed.reviewer.id, mwtest::at(2025, 3, 8));
     CHECK(digest.size() == 64);
+    CHECK(sessions.hasApprovedRecords(seed.instrument.id));
+    const auto outcomes = sessions.latestApprovedOutcomes();
+    REQUIRE(outcomes.count(seed.instrument.id) == 1);
+    CHECK(outcomes.at(seed.instrument.id) == *read->outcome);
     read = sessions.find(session.id);
     CHECK(read->state == SessionState::Approved);
     CHECK(read->reviewer_id == seed.reviewer.id);
