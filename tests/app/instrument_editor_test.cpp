@@ -3,12 +3,12 @@
 // read-only with the reason while the rest stays editable; only an administrator saves.
 #include "app/gui/admin/instrument_editor.h"
 #include "app/gui/admin/range_table.h"
-#include "app/gui/gui_entry.h"
 #include "app/gui/main_window.h"
 #include "app/gui/workspace.h"
 #include "storage/audit_repository.h"
-#include "storage/demo/demo_workbook.h"
 #include "storage/instrument_repository.h"
+
+#include "tests/support/demo_window.h"
 
 #include <catch2/catch.hpp>
 
@@ -26,22 +26,10 @@ using mw::gui::RangeTable;
 
 namespace {
 
-struct Lab {
-    QTemporaryDir dir;
-    QString path = dir.filePath(QStringLiteral("demo.meterwright"));
-    mw::gui::MainWindow window;
-
-    Lab(const char* login, const char* password) {
-        mw::gui::initResources();
-        mw::demo::writeDemoWorkbook(
-            path, std::chrono::floor<std::chrono::days>(std::chrono::system_clock::now()));
-        QString error;
-        REQUIRE(window.openWorkbook(path, &error));
-        REQUIRE(window.signIn(QLatin1String(login), QLatin1String(password)));
-        window.workspace().waitForBackgroundWork();
-    }
+struct Lab : mwtest::DemoWindow {
+    using DemoWindow::DemoWindow;
     mw::storage::InstrumentRepository instruments() {
-        return mw::storage::InstrumentRepository(*window.workbook());
+        return mw::storage::InstrumentRepository(workbook());
     }
 };
 

@@ -2,11 +2,11 @@
 // dialog for everyone, on the demo workbook: each good entry saved, each bad one refused with its
 // reason and nothing saved.
 #include "app/gui/admin/people_dialog.h"
-#include "app/gui/gui_entry.h"
 #include "app/gui/main_window.h"
 #include "app/gui/workspace.h"
-#include "storage/demo/demo_workbook.h"
 #include "storage/user_repository.h"
+
+#include "tests/support/demo_window.h"
 
 #include <catch2/catch.hpp>
 
@@ -17,21 +17,9 @@
 
 namespace {
 
-struct Lab {
-    QTemporaryDir dir;
-    QString path = dir.filePath(QStringLiteral("demo.meterwright"));
-    mw::gui::MainWindow window;
-
-    explicit Lab(const char* login, const char* password) {
-        mw::gui::initResources();
-        mw::demo::writeDemoWorkbook(
-            path, std::chrono::floor<std::chrono::days>(std::chrono::system_clock::now()));
-        QString error;
-        REQUIRE(window.openWorkbook(path, &error));
-        REQUIRE(window.signIn(QLatin1String(login), QLatin1String(password)));
-        window.workspace().waitForBackgroundWork();
-    }
-    mw::storage::UserRepository users() { return mw::storage::UserRepository(*window.workbook()); }
+struct Lab : mwtest::DemoWindow {
+    using DemoWindow::DemoWindow;
+    mw::storage::UserRepository users() { return mw::storage::UserRepository(workbook()); }
 };
 
 } // namespace
