@@ -30,6 +30,15 @@ std::string outcomeWords(const std::optional<Outcome>& outcome) {
     return outcome ? text(displayName(*outcome)) : std::string("not evaluated");
 }
 
+// A reason as typed, closed with a full stop unless it ends in one already.
+std::string sentence(const std::string& reason) {
+    if (reason.empty()) {
+        return "not recorded.";
+    }
+    const char last = reason.back();
+    return last == '.' || last == '!' || last == '?' ? reason : reason + ".";
+}
+
 std::string revisionLabel(const CalibrationSession& session) {
     return "revision " + std::to_string(session.revision);
 }
@@ -50,12 +59,11 @@ void addNotices(const RecordFacts& facts, Document& document) {
         std::string notice = "Amendment: this record (" + revisionLabel(s) +
                              ") supersedes record " +
                              recordIdentifier(source.instrument, *s.supersedes_id) + ".";
-        notice += " Reason: " +
-                  (s.amendment_reason.empty() ? std::string("not recorded") : s.amendment_reason);
         if (s.amended_at) {
-            notice += " (amendment started " + formatTimeUtc(*s.amended_at) + ")";
+            notice += " The amendment was started " + formatTimeUtc(*s.amended_at) + ".";
         }
-        document.blocks.push_back(Paragraph{notice + ".", ParagraphStyle::Notice});
+        notice += " Reason: " + sentence(s.amendment_reason);
+        document.blocks.push_back(Paragraph{notice, ParagraphStyle::Notice});
     }
 }
 
@@ -70,8 +78,8 @@ std::string supersededBanner(const RecordSource& source) {
     if (next.approvedAt) {
         banner += ", approved " + formatDay(dayOf(*next.approvedAt));
     }
-    banner += ". Reason: " + (next.reason.empty() ? std::string("not recorded") : next.reason);
-    return banner + ". Kept for the history only; use the successor.";
+    banner += ". Reason: " + sentence(next.reason);
+    return banner + " Kept for the history only; use the successor.";
 }
 
 void addOutcome(const RecordFacts& facts, Document& document) {
@@ -83,7 +91,7 @@ void addOutcome(const RecordFacts& facts, Document& document) {
     if (e.asLeft) {
         fields.push_back({"As left (after adjustment)", outcomeWords(e.asLeft)});
     }
-    fields.push_back({"Condition on leaving the laboratory", outcomeWords(e.overall)});
+    fields.push_back({"On leaving the laboratory", outcomeWords(e.overall)});
     document.blocks.push_back(Heading{"Outcome", 1});
     document.blocks.push_back(FieldList{fields});
     if (e.hazardCaution) {
@@ -199,8 +207,7 @@ void addStandards(const RecordFacts& facts, Document& document) {
             overdue.push_back(tag +
                               " was past its due date on the day of calibration; it was used "
                               "because: " +
-                              (use.overdue_justification.empty() ? std::string("no reason given")
-                                                                 : use.overdue_justification));
+                              sentence(use.overdue_justification));
         }
     }
     document.blocks.push_back(Heading{"Reference standards and traceability", 1});
@@ -219,7 +226,7 @@ void addStandards(const RecordFacts& facts, Document& document) {
         "SI through national measurement standards.",
         ParagraphStyle::Small});
     for (const std::string& line : overdue) {
-        document.blocks.push_back(Paragraph{line + ".", ParagraphStyle::Notice});
+        document.blocks.push_back(Paragraph{line, ParagraphStyle::Notice});
     }
 }
 
@@ -252,7 +259,7 @@ void addClosing(const RecordFacts& facts, Document& document) {
     const std::string id = recordIdentifier(source.instrument, s.id);
     if (isRecord(s) && !s.digest.empty()) {
         document.blocks.push_back(FieldList{{
-            {"Record digest (SHA-256)", s.digest, true},
+            {"Digest (SHA-256)", s.digest, true},
             {"How to check it",
              "run \"" + std::string(kVerifyCommand) +
                  "\" on the laboratory's workbook: it recomputes the digest of every approved "

@@ -21,6 +21,29 @@ std::string percentOfLimit(double fraction) {
     return std::to_string(std::lround(fraction * 100.0)) + " %";
 }
 
+// The state in a word, with the revision of an amendment: the table has many columns.
+std::string stateWords(const HistoryRow& row) {
+    std::string words;
+    switch (row.state) {
+    case SessionState::Draft:
+        words = "Draft";
+        break;
+    case SessionState::Submitted:
+        words = "Awaiting review";
+        break;
+    case SessionState::Returned:
+        words = "Returned";
+        break;
+    case SessionState::Approved:
+        words = "Approved";
+        break;
+    case SessionState::Superseded:
+        words = "Superseded";
+        break;
+    }
+    return row.revision > 1 ? words + " (rev. " + std::to_string(row.revision) + ")" : words;
+}
+
 bool outOfTolerance(const std::optional<Outcome>& asFound) {
     return asFound && (*asFound == Outcome::Fail || *asFound == Outcome::ConditionalFail);
 }
@@ -30,7 +53,7 @@ void addCalibrations(const HistoryReportSource& source, Document& document) {
     Table table;
     table.columns = {{"Started"},  {"Record"},     {"State"},
                      {"As found"}, {"As left"},    {"Worst as found", Align::Right},
-                     {"Where"},    {"Technician"}, {"Reviewer"}};
+                     {"At"},       {"Technician"}, {"Reviewer"}};
     for (const HistoryRow& row : source.history.rows) {
         std::string where = "-";
         std::string worst = "-";
@@ -40,14 +63,16 @@ void addCalibrations(const HistoryReportSource& source, Document& document) {
             for (const RangeSpec& r : instrument.ranges) {
                 range = r.label == row.worstAsFoundRange ? &r : range;
             }
-            where = row.worstAsFoundRange + " at " +
-                    (range ? scaleValue(row.worstAsFoundApplied, *range)
-                           : quantity(row.worstAsFoundApplied, row.worstAsFoundUnit));
+            // The range is named only where the instrument has several.
+            where = range ? scaleValue(row.worstAsFoundApplied, *range)
+                          : quantity(row.worstAsFoundApplied, row.worstAsFoundUnit);
+            if (instrument.ranges.size() > 1) {
+                where = row.worstAsFoundRange + ": " + where;
+            }
         }
         table.rows.push_back(
-            {formatDay(dayOf(row.startedAt)),
-             recordIdentifier(instrument, row.sessionId) + " r" + std::to_string(row.revision),
-             text(displayName(row.state)), outcome(row.asFound), outcome(row.asLeft), worst, where,
+            {formatDay(dayOf(row.startedAt)), recordIdentifier(instrument, row.sessionId),
+             stateWords(row), outcome(row.asFound), outcome(row.asLeft), worst, where,
              row.technician, row.reviewer.empty() ? std::string("-") : row.reviewer});
         table.emphasised.push_back(outOfTolerance(row.asFound));
     }
@@ -59,7 +84,8 @@ void addCalibrations(const HistoryReportSource& source, Document& document) {
     document.blocks.push_back(table);
     document.blocks.push_back(Paragraph{
         "Outcomes are the session evaluator's. Worst as found: the largest error of the "
-        "as-found points as a share of the limit of error, and where it was found. Rows in bold "
+        "as-found points as a share of the limit of error; At: the applied value where it was "
+        "found. Rows in bold "
         "were found out of tolerance. Only approved records are used for the interval and the "
         "drift below; a superseded revision is replaced by its amendment, and work not yet "
         "approved is listed for completeness.",

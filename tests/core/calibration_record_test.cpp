@@ -87,7 +87,7 @@ TEST_CASE("an approved record carries every item a calibration certificate needs
                               "each measured error is compared with the limit as it stands"));
     CHECK_THAT(text, Contains("accuracy class 1.5 (IEC 60051-1:2016 and IEC 60051-2)"));
     // The digest and how to check it.
-    CHECK_THAT(text, Contains("Record digest (SHA-256): " + kDigest));
+    CHECK_THAT(text, Contains("Digest (SHA-256): " + kDigest));
     CHECK_THAT(text, Contains("meterwright verify WORKBOOK"));
     CHECK_FALSE(document.watermark);
     CHECK_FALSE(document.banner);
@@ -127,7 +127,7 @@ TEST_CASE("as-found and as-left both print, and a point that did not pass stands
     const std::string text = mwtest::documentText(document);
     CHECK_THAT(text, Contains("As found: Fail"));
     CHECK_THAT(text, Contains("As left (after adjustment): Pass"));
-    CHECK_THAT(text, Contains("Condition on leaving the laboratory: Pass"));
+    CHECK_THAT(text, Contains("On leaving the laboratory: Pass"));
     CHECK_THAT(text, Contains("2020-01-01 09:40 UTC | Span trimmed by 2 % |"));
     // (9950 − 9900)/9900 = +0.505 %, within ±1 %.
     CHECK_THAT(text, Contains("10 V | R1 multiplier | 9.9000 k\u03A9 | 9.9500 k\u03A9 | "
