@@ -8,10 +8,12 @@
 
 #include <QCoreApplication>
 #include <QFileInfo>
+#include <QGuiApplication>
 #include <QTextStream>
 
 #include <cstring>
 #include <exception>
+#include <memory>
 #include <stdexcept>
 
 namespace mw::cli {
@@ -116,6 +118,30 @@ int runFrom(const std::vector<Command>& commands, const QString& family,
     return kUsageError;
 }
 
+// Scripts read stderr line by line: Qt's notice that it chose a runtime folder of its own (no
+// XDG_RUNTIME_DIR on a server) is no news to them and would read as a second error line.
+void quietRuntimeNotice(QtMsgType type, const QMessageLogContext& context, const QString& text) {
+    static const QtMessageHandler previous = qInstallMessageHandler(nullptr);
+    if (!text.startsWith(QLatin1String("QStandardPaths: XDG_RUNTIME_DIR not set"))) {
+        previous(type, context, text);
+    }
+}
+
+// Commands that paint need fonts and paint devices, which need a QGuiApplication; offscreen,
+// so that they never need a display. A QGuiApplication takes options of its own from the
+// command line (-session, -platform, -style ...), so it is given the program's name only.
+std::unique_ptr<QCoreApplication> applicationFor(int& argc, char* argv[]) {
+    for (const Command& command : workbookCommands()) {
+        if (command.paints && command.name == QLatin1String(argv[1])) {
+            static int programOnly = 1;
+            qputenv("QT_QPA_PLATFORM", "offscreen");
+            qInstallMessageHandler(quietRuntimeNotice);
+            return std::make_unique<QGuiApplication>(programOnly, argv);
+        }
+    }
+    return std::make_unique<QCoreApplication>(argc, argv);
+}
+
 } // namespace
 
 bool wantsHeadless(int argc, char* argv[]) {
@@ -144,10 +170,13 @@ bool wantsHeadless(int argc, char* argv[]) {
 }
 
 int runHeadless(int argc, char* argv[]) {
-    QCoreApplication app(argc, argv);
+    QStringList arguments; // as typed, whatever the application object takes for itself
+    for (int i = 1; i < argc; ++i) {
+        arguments << QString::fromLocal8Bit(argv[i]);
+    }
+    const std::unique_ptr<QCoreApplication> app = applicationFor(argc, argv);
     QCoreApplication::setApplicationName(QStringLiteral("meterwright"));
     QCoreApplication::setApplicationVersion(QStringLiteral(MW_VERSION));
-    QStringList arguments = QCoreApplication::arguments().mid(1);
     const QString first = arguments.first();
     if (first == QStringLiteral("--version") || first == QStringLiteral("-v")) {
         printLine(QStringLiteral("meterwright %1").arg(QStringLiteral(MW_VERSION)));

@@ -4,6 +4,7 @@
 #include "app/cli/cli_support.h"
 #include "app/cli/command_table.h"
 #include "app/cli/demo_command.h"
+#include "app/cli/record_commands.h"
 #include "app/cli/session_commands.h"
 #include "app/cli/workbook_access.h"
 #include "storage/record_digest.h"
@@ -127,7 +128,7 @@ int runUpgrade(const QStringList& arguments) {
 
 std::vector<Command> workbookCommands() {
     // One entry per command; each command's code lives above (or in its own file).
-    return {
+    std::vector<Command> commands{
         demoCommand(),
         {QStringLiteral("verify"),
          QStringLiteral("check a workbook's integrity and the digest chain of approved records"),
@@ -139,6 +140,10 @@ std::vector<Command> workbookCommands() {
         backupCommand(),
         restoreCommand(),
     };
+    for (Command& command : recordCommands()) {
+        commands.push_back(std::move(command));
+    }
+    return commands;
 }
 
 } // namespace mw::cli
