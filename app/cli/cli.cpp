@@ -120,10 +120,16 @@ int runFrom(const std::vector<Command>& commands, const QString& family,
 
 // Scripts read stderr line by line: Qt's notice that it chose a runtime folder of its own (no
 // XDG_RUNTIME_DIR on a server) is no news to them and would read as a second error line.
+QtMessageHandler qtHandler = nullptr;
+
 void quietRuntimeNotice(QtMsgType type, const QMessageLogContext& context, const QString& text) {
-    static const QtMessageHandler previous = qInstallMessageHandler(nullptr);
-    if (!text.startsWith(QLatin1String("QStandardPaths: XDG_RUNTIME_DIR not set"))) {
-        previous(type, context, text);
+    if (text.startsWith(QLatin1String("QStandardPaths: XDG_RUNTIME_DIR not set"))) {
+        return;
+    }
+    if (qtHandler != nullptr) {
+        qtHandler(type, context, text);
+    } else {
+        QTextStream(stderr) << qFormatLogMessage(type, context, text) << '\n';
     }
 }
 
@@ -135,7 +141,7 @@ std::unique_ptr<QCoreApplication> applicationFor(int& argc, char* argv[]) {
         if (command.paints && command.name == QLatin1String(argv[1])) {
             static int programOnly = 1;
             qputenv("QT_QPA_PLATFORM", "offscreen");
-            qInstallMessageHandler(quietRuntimeNotice);
+            qtHandler = qInstallMessageHandler(quietRuntimeNotice);
             return std::make_unique<QGuiApplication>(programOnly, argv);
         }
     }
