@@ -34,7 +34,7 @@ QString listing(const std::vector<Command>& commands, const QString& prefix) {
     QString text;
     for (const Command& command : commands) {
         text += QStringLiteral("  %1%2  %3\n")
-                    .arg(prefix, command.name.leftJustified(12, QLatin1Char(' ')), command.summary);
+                    .arg(prefix, command.name.leftJustified(14, QLatin1Char(' ')), command.summary);
     }
     return text;
 }
@@ -48,11 +48,11 @@ QString generalHelp() {
                "\n"
                "Commands:\n") +
            listing(workbookCommands(), QString()) +
-           QStringLiteral("  calc          engine calculations (meterwright calc --help)\n"
+           QStringLiteral("  calc            engine calculations (meterwright calc --help)\n"
                           "\n"
                           "Options:\n"
-                          "  --help        show this text\n"
-                          "  --version     show the version\n"
+                          "  --help          show this text\n"
+                          "  --version       show the version\n"
                           "\n"
                           "Exit codes: 0 ok, 1 a check failed, 2 usage or input error, 3 internal "
                           "error.\n");

@@ -254,11 +254,12 @@ int runHistoryReport(const QStringList& arguments) {
                               {QStringLiteral("path"), out},
                               {QStringLiteral("pages"), pages}});
     } else {
-        printLine(QStringLiteral("history of %1: %2 calibrations, %3 pages -> %4")
+        printLine(QStringLiteral("history of %1: %2 calibration%3, %4 page%5 -> %6")
                       .arg(tag)
                       .arg(calibrations)
+                      .arg(calibrations == 1 ? QString() : QStringLiteral("s"))
                       .arg(pages)
-                      .arg(out));
+                      .arg(pages == 1 ? QString() : QStringLiteral("s"), out));
     }
     return 0;
 }
