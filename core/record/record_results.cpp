@@ -6,7 +6,10 @@
 #include "core/history/calendar.h"
 #include "core/record/record_format.h"
 #include "core/record/record_parts.h"
+#include "core/units/decimal.h"
 
+#include <algorithm>
+#include <cmath>
 #include <cstdio>
 
 namespace mw::record::detail {
@@ -27,6 +30,25 @@ std::optional<SignalType> signalOf(const RecordFacts& facts, const RangeSpec& ra
     return range.signal;
 }
 
+// The power of ten of the SI prefix in which a range's errors, limit and U are printed: that of
+// its limit of error, so that a column reads in one prefix.
+int columnPrefix(double permissibleError) {
+    if (!(permissibleError > 0.0)) {
+        return 0;
+    }
+    const int leading = ExactDecimal::fromDouble(permissibleError).leadingExponent();
+    return std::clamp(static_cast<int>(std::floor(leading / 3.0)) * 3, -12, 9);
+}
+
+// `value` to the last of `digits` significant digits, in the prefix 10^prefix.
+std::string inPrefix(double value, int digits, Unit unit, int prefix) {
+    if (value == 0.0) {
+        return formatAtExponent(0.0, prefix, unit, prefix);
+    }
+    const int leading = ExactDecimal::fromDouble(value).leadingExponent();
+    return formatAtExponent(value, leading - digits + 1, unit, prefix);
+}
+
 Table pointTable(const RecordFacts& facts, const RangeSpec& range, const EvaluationResult& r) {
     Table table;
     table.columns = {
@@ -34,17 +56,19 @@ Table pointTable(const RecordFacts& facts, const RangeSpec& range, const Evaluat
         {"Error", Align::Right}, {"% FV", Align::Right},    {"Limit \u00B1", Align::Right},
         {"U", Align::Right},     {"k", Align::Right},       {"Decision"}};
     const double classIndex = facts.source.instrument.accuracy_class;
+    const int prefix = columnPrefix(r.permissibleError);
     for (const PointResult& p : r.points) {
+        // U is already rounded up to two significant digits: printed exactly as decided with.
         const double u = p.budget.expandedRounded;
         table.rows.push_back({
             p.pointIndex >= 0 ? std::to_string(p.pointIndex + 1) : std::string("-"),
             scaleValue(p.applied, range),
             scaleValue(p.indicated, range),
             formatErrorLikeU(p.error, u, p.permissibleError, guardBand(facts.decision, u),
-                             range.unit),
+                             range.unit, prefix),
             signedPercent(p.errorPercentOfFiducial, classIndex),
-            quantity(p.permissibleError, range.unit),
-            formatEngineering(u, 2, range.unit),
+            inPrefix(p.permissibleError, 3, range.unit, prefix),
+            inPrefix(u, 2, range.unit, prefix),
             coverageFactorText(p.budget.coverageFactor),
             text(displayName(p.decision)),
         });
