@@ -9,6 +9,7 @@
 #include <QDir>
 #include <QFile>
 #include <QPrinter>
+#include <QProcess>
 #include <QTemporaryDir>
 
 #include <string>
@@ -79,6 +80,27 @@ TEST_CASE("a file that cannot be written leaves nothing behind") {
     CHECK_THROWS_WITH(writePdf(threePages(), path, false),
                       Catch::Contains("cannot be written") && Catch::Contains("missing-folder"));
     CHECK(QDir(dir.path()).entryList(QDir::AllEntries | QDir::NoDotAndDotDot).isEmpty());
+}
+
+TEST_CASE("charts go into the PDF as vector paths, not as pictures") {
+    Document document = threePages();
+    mw::RangeChart chart;
+    chart.upper = 10.0;
+    chart.limitPercent = 1.5;
+    chart.yExtent = 2.0;
+    chart.series = {{mw::Phase::AsFound, mw::Direction::Up, {{5.0, 0.5, 0.2, mw::Outcome::Pass}}}};
+    document.blocks.push_back(ErrorChart{"Errors", chart, mw::Unit::Volt});
+    QTemporaryDir dir;
+    const QString path = dir.filePath(QStringLiteral("chart.pdf"));
+    writePdf(document, path, false);
+    // pdfimages (poppler) lists every raster image of a PDF after two header lines.
+    QProcess images;
+    images.start(QStringLiteral("pdfimages"), {QStringLiteral("-list"), path});
+    REQUIRE(images.waitForFinished(60'000));
+    REQUIRE(images.exitCode() == 0);
+    const QStringList lines =
+        QString::fromUtf8(images.readAllStandardOutput()).split(QChar('\n'), Qt::SkipEmptyParts);
+    CHECK(lines.size() == 2);
 }
 
 TEST_CASE("a printer gets the same pages as the PDF") {
