@@ -6,6 +6,7 @@
 // Usage: record_bench [--workbook FILE]   (default: a demo workbook written to a temporary folder)
 #include "app/record/document_output.h"
 #include "app/record/record_loader.h"
+#include "bench/bench_timing.h"
 #include "core/record/calibration_record.h"
 #include "storage/demo/demo_workbook.h"
 #include "storage/session_repository.h"
@@ -35,25 +36,8 @@ constexpr double kRecordTargetMs = 300.0;
 constexpr double kBatchTargetMs = 20'000.0;
 constexpr int kBatchSize = 100;
 
-double millisecondsOf(const std::function<void()>& work) {
-    const auto start = steady_clock::now();
-    work();
-    return duration<double, std::milli>(steady_clock::now() - start).count();
-}
-
-double median(std::vector<double> values) {
-    std::sort(values.begin(), values.end());
-    const std::size_t n = values.size();
-    return n % 2 == 1 ? values[n / 2] : 0.5 * (values[n / 2 - 1] + values[n / 2]);
-}
-
-double medianOf(int repeats, const std::function<void(int)>& work) {
-    std::vector<double> times;
-    for (int i = 0; i < repeats; ++i) {
-        times.push_back(millisecondsOf([&] { work(i); }));
-    }
-    return median(times);
-}
+using mwbench::medianOf;
+using mwbench::millisecondsOf;
 
 // The floor: the least a one-page PDF through QSaveFile and QPdfWriter costs here.
 void minimalPdf(const QString& path) {
