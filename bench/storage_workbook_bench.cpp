@@ -5,6 +5,7 @@
 //
 // Usage: storage_workbook_bench [--instruments N] [--years N] [--keep FILE]
 //   --keep FILE  build the workbook at FILE and keep it; an existing FILE is reused as it is.
+#include "bench/bench_timing.h"
 #include "storage/demo/demo_catalogue.h"
 #include "storage/instrument_repository.h"
 #include "storage/session_repository.h"
@@ -38,25 +39,8 @@ struct Settings {
     QString keep;
 };
 
-double millisecondsOf(const std::function<void()>& work) {
-    const auto start = steady_clock::now();
-    work();
-    return duration<double, std::milli>(steady_clock::now() - start).count();
-}
-
-double median(std::vector<double> values) {
-    std::sort(values.begin(), values.end());
-    const std::size_t n = values.size();
-    return n % 2 == 1 ? values[n / 2] : 0.5 * (values[n / 2 - 1] + values[n / 2]);
-}
-
-double medianOf(int repeats, const std::function<void(int)>& work) {
-    std::vector<double> times;
-    for (int i = 0; i < repeats; ++i) {
-        times.push_back(millisecondsOf([&] { work(i); }));
-    }
-    return median(times);
-}
+using mwbench::medianOf;
+using mwbench::millisecondsOf;
 
 // 50 readings: five cardinal points, up and down, five repeats each.
 std::vector<mw::Reading> readingsOf(const mw::Instrument& instrument, int count, double drift) {

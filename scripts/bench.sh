@@ -14,6 +14,10 @@ echo
 echo "== the bench screen (target: a typed value saved, evaluated and shown within 16 ms)"
 QT_QPA_PLATFORM=offscreen "$MW_ROOT/build/release/bench/app_typing_bench"
 echo
+echo "== calibration records as PDF on the demo workbook (targets: one record < 300 ms,"
+echo "   100 records < 20 s)"
+"$MW_ROOT/build/release/bench/record_bench"
+echo
 echo "== workbook of about 1,000,000 readings (targets: history < 5 ms, due list < 20 ms,"
 echo "   saving 40 readings < 20 ms, open with quick_check < 500 ms); building it takes minutes"
 "$MW_ROOT/build/release/bench/storage_workbook_bench" "$@"

@@ -7,13 +7,14 @@ MW_ROOT="$(cd "$(dirname "${BASH_SOURCE[0]}")/.." && pwd)"
 
 # Build tools, Qt 6 (Widgets, Charts, SQL with the SQLite driver, Svg, PrintSupport), Catch2 for
 # the tests, ngspice and Boost.Math as independent references for the engine's tests, Xvfb for
-# running the window without a desktop, fonts for rendering records offscreen.
+# running the window without a desktop, fonts for rendering records offscreen, poppler's
+# pdftotext and pdftoppm for the tests that read the records back.
 MW_PACKAGES=(
     build-essential cmake pkg-config git
     qt6-base-dev qt6-base-dev-tools qt6-charts-dev qt6-svg-dev libqt6opengl6-dev
     libqt6sql6-sqlite qt6-qpa-plugins libsqlite3-dev sqlite3 libsodium-dev
     catch2 libboost-math-dev ngspice
-    xvfb xauth fonts-dejavu-core clang-format
+    xvfb xauth fonts-dejavu-core clang-format poppler-utils
     desktop-file-utils shared-mime-info libglib2.0-bin
 )
 

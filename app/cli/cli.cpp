@@ -8,10 +8,12 @@
 
 #include <QCoreApplication>
 #include <QFileInfo>
+#include <QGuiApplication>
 #include <QTextStream>
 
 #include <cstring>
 #include <exception>
+#include <memory>
 #include <stdexcept>
 
 namespace mw::cli {
@@ -32,7 +34,7 @@ QString listing(const std::vector<Command>& commands, const QString& prefix) {
     QString text;
     for (const Command& command : commands) {
         text += QStringLiteral("  %1%2  %3\n")
-                    .arg(prefix, command.name.leftJustified(12, QLatin1Char(' ')), command.summary);
+                    .arg(prefix, command.name.leftJustified(14, QLatin1Char(' ')), command.summary);
     }
     return text;
 }
@@ -46,11 +48,11 @@ QString generalHelp() {
                "\n"
                "Commands:\n") +
            listing(workbookCommands(), QString()) +
-           QStringLiteral("  calc          engine calculations (meterwright calc --help)\n"
+           QStringLiteral("  calc            engine calculations (meterwright calc --help)\n"
                           "\n"
                           "Options:\n"
-                          "  --help        show this text\n"
-                          "  --version     show the version\n"
+                          "  --help          show this text\n"
+                          "  --version       show the version\n"
                           "\n"
                           "Exit codes: 0 ok, 1 a check failed, 2 usage or input error, 3 internal "
                           "error.\n");
@@ -116,6 +118,36 @@ int runFrom(const std::vector<Command>& commands, const QString& family,
     return kUsageError;
 }
 
+// Scripts read stderr line by line: Qt's notice that it chose a runtime folder of its own (no
+// XDG_RUNTIME_DIR on a server) is no news to them and would read as a second error line.
+QtMessageHandler qtHandler = nullptr;
+
+void quietRuntimeNotice(QtMsgType type, const QMessageLogContext& context, const QString& text) {
+    if (text.startsWith(QLatin1String("QStandardPaths: XDG_RUNTIME_DIR not set"))) {
+        return;
+    }
+    if (qtHandler != nullptr) {
+        qtHandler(type, context, text);
+    } else {
+        QTextStream(stderr) << qFormatLogMessage(type, context, text) << '\n';
+    }
+}
+
+// Commands that paint need fonts and paint devices, which need a QGuiApplication; offscreen,
+// so that they never need a display. A QGuiApplication takes options of its own from the
+// command line (-session, -platform, -style ...), so it is given the program's name only.
+std::unique_ptr<QCoreApplication> applicationFor(int& argc, char* argv[]) {
+    for (const Command& command : workbookCommands()) {
+        if (command.paints && command.name == QLatin1String(argv[1])) {
+            static int programOnly = 1;
+            qputenv("QT_QPA_PLATFORM", "offscreen");
+            qtHandler = qInstallMessageHandler(quietRuntimeNotice);
+            return std::make_unique<QGuiApplication>(programOnly, argv);
+        }
+    }
+    return std::make_unique<QCoreApplication>(argc, argv);
+}
+
 } // namespace
 
 bool wantsHeadless(int argc, char* argv[]) {
@@ -144,10 +176,13 @@ bool wantsHeadless(int argc, char* argv[]) {
 }
 
 int runHeadless(int argc, char* argv[]) {
-    QCoreApplication app(argc, argv);
+    QStringList arguments; // as typed, whatever the application object takes for itself
+    for (int i = 1; i < argc; ++i) {
+        arguments << QString::fromLocal8Bit(argv[i]);
+    }
+    const std::unique_ptr<QCoreApplication> app = applicationFor(argc, argv);
     QCoreApplication::setApplicationName(QStringLiteral("meterwright"));
     QCoreApplication::setApplicationVersion(QStringLiteral(MW_VERSION));
-    QStringList arguments = QCoreApplication::arguments().mid(1);
     const QString first = arguments.first();
     if (first == QStringLiteral("--version") || first == QStringLiteral("-v")) {
         printLine(QStringLiteral("meterwright %1").arg(QStringLiteral(MW_VERSION)));

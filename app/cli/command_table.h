@@ -14,6 +14,8 @@ struct Command {
     QString summary; // one line for --help
     // Receives the arguments after the command name; returns the exit code.
     std::function<int(const QStringList& arguments)> run;
+    // Paints (fonts, PDF): runs under an offscreen QGuiApplication instead of a QCoreApplication.
+    bool paints = false;
 };
 
 // `meterwright calc …` families, one per file in app/cli/.

@@ -4,6 +4,7 @@
 #include "app/cli/cli_support.h"
 #include "app/cli/command_table.h"
 #include "app/cli/demo_command.h"
+#include "app/cli/record_commands.h"
 #include "app/cli/session_commands.h"
 #include "app/cli/workbook_access.h"
 #include "storage/record_digest.h"
@@ -139,8 +140,10 @@ std::vector<Command> workbookCommands() {
         backupCommand(),
         restoreCommand(),
     };
-    for (Command& command : peopleCommands()) {
-        commands.push_back(std::move(command));
+    for (auto&& family : {peopleCommands(), recordCommands()}) {
+        for (const Command& command : family) {
+            commands.push_back(command);
+        }
     }
     return commands;
 }

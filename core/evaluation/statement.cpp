@@ -100,7 +100,7 @@ std::string coverage(double probability) {
 } // namespace
 
 std::string formatErrorLikeU(double error, double expandedU, double permissibleError,
-                             double guardBand, Unit unit) {
+                             double guardBand, Unit unit, std::optional<int> prefixPower) {
     const ExactDecimal exact = ExactDecimal::fromDouble(error);
     const ExactDecimal u = ExactDecimal::fromDouble(expandedU);
     int last = u.isZero() ? exact.lastDigitExponent() : u.leadingExponent() - 1;
@@ -122,8 +122,11 @@ std::string formatErrorLikeU(double error, double expandedU, double permissibleE
         }
         --last;
     }
-    const std::string text = formatAtExponent(error, last, unit);
-    return error > 0.0 && text.front() != '0' ? "+" + text : text;
+    const std::string text = formatAtExponent(error, last, unit, prefixPower);
+    // A zero takes no sign; "0.9 mA" (a prefix given) is no zero.
+    const std::string number = text.substr(0, text.find_first_of(" e"));
+    const bool zero = number.find_first_of("123456789") == std::string::npos;
+    return error > 0.0 && !zero ? "+" + text : text;
 }
 
 std::string describeRule(const DecisionSettings& settings) {

@@ -10,6 +10,7 @@
 #include "core/units/quantity.h"
 
 #include <cstddef>
+#include <optional>
 #include <string>
 #include <vector>
 
@@ -52,8 +53,10 @@ std::string describeRule(const DecisionSettings& settings);
 
 // An error written to the last digit of its expanded uncertainty (JCGM 100:2008 7.2.6), with
 // one more digit where that rounding would put it on the other side of the limit or of the
-// acceptance limit than it is, and a sign: "+160 mV".
+// acceptance limit than it is, and a sign: "+160 mV". With `prefixPower`, in that prefix (a
+// column of a table in one prefix: "+0.9 mA", not "+900 µA" among milliamperes).
 std::string formatErrorLikeU(double error, double expandedU, double permissibleError,
-                             double guardBand, Unit unit);
+                             double guardBand, Unit unit,
+                             std::optional<int> prefixPower = std::nullopt);
 
 } // namespace mw

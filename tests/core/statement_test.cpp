@@ -67,6 +67,14 @@ TEST_CASE("an error is never rounded onto the other side of a limit") {
     CHECK(formatErrorLikeU(-2.5e-6, 1.2e-6, 50e-6, 0.0, Unit::Ampere) == "-2.5 \u00B5A");
 }
 
+TEST_CASE("an error can be written in the prefix of its column") {
+    // JCGM 100:2008 7.2.6: to the last digit of U (2.4 mA), here in milliamperes throughout.
+    CHECK(formatErrorLikeU(-0.0009, 0.0024, 0.015, 0.0, Unit::Ampere) == "-900 \u00B5A");
+    CHECK(formatErrorLikeU(-0.0009, 0.0024, 0.015, 0.0, Unit::Ampere, -3) == "-0.9 mA");
+    CHECK(formatErrorLikeU(0.0009, 0.0024, 0.015, 0.0, Unit::Ampere, -3) == "+0.9 mA");
+    CHECK(formatErrorLikeU(0.0, 0.0024, 0.015, 0.0, Unit::Ampere, -3) == "0.0 mA");
+}
+
 TEST_CASE("each outcome has its own verdict and the guard band is stated") {
     // ILAC G8:09/2019 4.2.3 outcome words.
     const DecisionSettings guarded{DecisionRule::GuardedAcceptance, 1.0};

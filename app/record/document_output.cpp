@@ -1,0 +1,82 @@
+// Painting documents on paged devices, images and PDF files.
+#include "app/record/document_output.h"
+
+#include "app/record/document_layout.h"
+
+#include <QFileInfo>
+#include <QPageSize>
+#include <QPagedPaintDevice>
+#include <QPainter>
+#include <QPdfWriter>
+#include <QSaveFile>
+
+namespace mw::record {
+namespace {
+
+// Vector output does not depend on it; it sets the grid text and lines are placed on.
+constexpr int kPdfResolution = 600;
+
+} // namespace
+
+int paintDocument(const Document& document, QPagedPaintDevice& device) {
+    const DocumentLayout layout(document, device, QSizeF(device.width(), device.height()));
+    QPainter painter;
+    if (!painter.begin(&device)) {
+        throw OutputError(QStringLiteral("the output device could not be opened for painting"));
+    }
+    for (int page = 0; page < layout.pageCount(); ++page) {
+        if (page > 0 && !device.newPage()) {
+            throw OutputError(QStringLiteral("page %1 could not be started").arg(page + 1));
+        }
+        layout.paintPage(painter, page);
+    }
+    painter.end();
+    return layout.pageCount();
+}
+
+std::vector<QImage> renderPages(const Document& document, int dpi) {
+    const QSize size = QPageSize(QPageSize::A4).sizePixels(dpi);
+    QImage probe(size, QImage::Format_RGB32);
+    const int dotsPerMeter = qRound(dpi / 0.0254);
+    probe.setDotsPerMeterX(dotsPerMeter);
+    probe.setDotsPerMeterY(dotsPerMeter);
+    const DocumentLayout layout(document, probe, QSizeF(size));
+    std::vector<QImage> pages;
+    for (int page = 0; page < layout.pageCount(); ++page) {
+        QImage image = probe.copy();
+        image.fill(Qt::white);
+        QPainter painter(&image);
+        layout.paintPage(painter, page);
+        painter.end();
+        pages.push_back(std::move(image));
+    }
+    return pages;
+}
+
+int writePdf(const Document& document, const QString& path, bool overwrite) {
+    if (!overwrite && QFileInfo::exists(path)) {
+        throw OutputError(QStringLiteral("%1 already exists; nothing was written (use --force "
+                                         "to replace it)")
+                              .arg(path));
+    }
+    QSaveFile file(path);
+    if (!file.open(QIODevice::WriteOnly)) {
+        throw OutputError(QStringLiteral("%1 cannot be written: %2").arg(path, file.errorString()));
+    }
+    int pages = 0;
+    {
+        QPdfWriter writer(&file);
+        writer.setPageSize(QPageSize(QPageSize::A4));
+        writer.setPageMargins(QMarginsF(0, 0, 0, 0));
+        writer.setResolution(kPdfResolution);
+        writer.setTitle(QString::fromStdString(document.title + " \u2013 " + document.identifier));
+        writer.setCreator(QStringLiteral("Meterwright"));
+        pages = paintDocument(document, writer);
+    }
+    if (!file.commit()) {
+        throw OutputError(QStringLiteral("%1 cannot be written: %2").arg(path, file.errorString()));
+    }
+    return pages;
+}
+
+} // namespace mw::record
