@@ -155,6 +155,13 @@ void MainWindow::buildMenus() {
     connect(submit, &QAction::triggered, this, &MainWindow::askToSubmit);
     QAction* exportChart = calibrationMenu->addAction(tr("&Export chart…"));
     connect(exportChart, &QAction::triggered, this, &MainWindow::exportChart);
+    calibrationMenu->addSeparator();
+    QAction* printRecord = calibrationMenu->addAction(tr("&Print record…"));
+    printRecord->setShortcut(QKeySequence::Print);
+    connect(printRecord, &QAction::triggered, this, [this] { printOrExportRecord(false); });
+    QAction* exportRecord = calibrationMenu->addAction(tr("Export record as P&DF…"));
+    connect(exportRecord, &QAction::triggered, this, [this] { printOrExportRecord(true); });
+    buildInstrumentMenu();
 
     QToolBar* pagesBar = addToolBar(tr("Pages"));
     pagesBar->setObjectName(QStringLiteral("pagesBar"));

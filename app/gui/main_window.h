@@ -89,6 +89,9 @@ private:
     void exportChart();
     void report(const QString& text);
     void fillRecentMenu();
+    void buildInstrumentMenu();
+    // The record of the calibration on the bench: print with preview, or export as PDF.
+    void printOrExportRecord(bool toPdf);
 
     std::unique_ptr<Workspace> workspace_;
     SignInThrottle throttle_;

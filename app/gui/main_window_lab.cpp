@@ -3,14 +3,17 @@
 #include "app/gui/admin/instrument_editor.h"
 #include "app/gui/admin/new_workbook_dialog.h"
 #include "app/gui/admin/people_dialog.h"
+#include "app/gui/bench/bench_view.h"
 #include "app/gui/main_window.h"
 #include "app/gui/recent_workbooks.h"
 #include "app/gui/register_page.h"
 #include "app/gui/workspace.h"
+#include "app/record/record_actions.h"
 #include "storage/instrument_repository.h"
 
 #include <QFileInfo>
 #include <QMenu>
+#include <QMenuBar>
 #include <QMessageBox>
 
 namespace mw::gui {
@@ -96,6 +99,52 @@ void MainWindow::editInstrument(std::optional<std::int64_t> instrumentId) {
         }
     } catch (const std::exception& error) {
         QMessageBox::warning(this, tr("Instrument"), QString::fromUtf8(error.what()));
+    }
+}
+
+void MainWindow::buildInstrumentMenu() {
+    QMenu* menu = menuBar()->addMenu(tr("&Instrument"));
+    QAction* add = menu->addAction(tr("&New instrument…"));
+    connect(add, &QAction::triggered, this, [this] { editInstrument(std::nullopt); });
+    QAction* edit = menu->addAction(tr("&Edit the selected instrument…"));
+    connect(edit, &QAction::triggered, this, [this] {
+        if (const auto id = register_->selectedInstrument()) {
+            editInstrument(*id);
+        }
+    });
+    menu->addSeparator();
+    QAction* print = menu->addAction(tr("&Print its history report…"));
+    connect(print, &QAction::triggered, this, [this] {
+        if (const auto id = register_->selectedInstrument(); id && workspace_->isOpen()) {
+            record::printInstrumentHistory(this, *workspace_->workbook(), *id);
+        }
+    });
+    QAction* pdf = menu->addAction(tr("Export its history report as P&DF…"));
+    connect(pdf, &QAction::triggered, this, [this] {
+        if (const auto id = register_->selectedInstrument(); id && workspace_->isOpen()) {
+            const QString written =
+                record::exportInstrumentHistoryPdf(this, *workspace_->workbook(), *id);
+            if (!written.isEmpty()) {
+                report(tr("History report written to %1").arg(written));
+            }
+        }
+    });
+}
+
+void MainWindow::printOrExportRecord(bool toPdf) {
+    if (bench_ == nullptr || !bench_->sessionId() || !workspace_->isOpen()) {
+        report(tr("Open a calibration on the bench first (a record not yet approved prints as a "
+                  "draft)."));
+        return;
+    }
+    if (!toPdf) {
+        record::printSessionRecord(this, *workspace_->workbook(), *bench_->sessionId());
+        return;
+    }
+    const QString written =
+        record::exportSessionRecordPdf(this, *workspace_->workbook(), *bench_->sessionId());
+    if (!written.isEmpty()) {
+        report(tr("Record written to %1").arg(written));
     }
 }
 
