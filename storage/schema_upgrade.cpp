@@ -45,6 +45,11 @@ QString legacy(const char* table) {
 // The SELECT list that turns a version 2 row into a version 3 row, column for column in the
 // order of schema_v3.cpp; nullptr: every column is copied as it is.
 const char* selectFor(const QString& table) {
+    if (table == QLatin1String("reference_standards")) {
+        // Version 2 did not record the day of the certificate's calibration.
+        return "id, asset_tag, description, certificate_number, due_date, NULL FROM "
+               "v2_reference_standards";
+    }
     if (table == QLatin1String("lab")) {
         // Version 2 had no number-writing or due-window settings: the defaults.
         return "id, name, address, accreditation_id, 0, 30 FROM v2_lab";

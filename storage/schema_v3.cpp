@@ -86,14 +86,17 @@ std::vector<TableDefinition> makeTables() {
         UNIQUE (instrument_id, label)) STRICT)",
                  {"id", "instrument_id", "sort_order", "label", "unit", "lower_limit", "full_scale",
                   "nominal_ohms", "fiducial_value", "signal", "diode"}});
-    t.push_back({"reference_standards",
-                 R"(CREATE TABLE reference_standards (
+    t.push_back(
+        {"reference_standards",
+         R"(CREATE TABLE reference_standards (
         id INTEGER PRIMARY KEY,
         asset_tag TEXT NOT NULL UNIQUE CHECK (length(asset_tag) > 0),
         description TEXT NOT NULL,
         certificate_number TEXT NOT NULL,
-        due_date TEXT NOT NULL CHECK ({date:due_date})) STRICT)",
-                 {"id", "asset_tag", "description", "certificate_number", "due_date"}});
+        due_date TEXT NOT NULL CHECK ({date:due_date}),
+        calibrated_on TEXT CHECK (calibrated_on IS NULL OR ({date:calibrated_on} AND
+                                                         calibrated_on <= due_date))) STRICT)",
+         {"id", "asset_tag", "description", "certificate_number", "due_date", "calibrated_on"}});
     t.push_back({"standard_specs",
                  R"(CREATE TABLE standard_specs (
         id INTEGER PRIMARY KEY,

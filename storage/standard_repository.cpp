@@ -13,7 +13,8 @@ namespace {
 using Kind = WorkbookError::Kind;
 
 const QString kSelect = QStringLiteral(
-    "SELECT id, asset_tag, description, certificate_number, due_date FROM reference_standards ");
+    "SELECT id, asset_tag, description, certificate_number, due_date, calibrated_on FROM "
+    "reference_standards ");
 
 QString where(const ReferenceStandard& s) {
     return QStringLiteral("reference standard \"%1\"").arg(QString::fromStdString(s.asset_tag));
@@ -24,6 +25,8 @@ void bindFields(QSqlQuery& q, const ReferenceStandard& s) {
     q.addBindValue(QString::fromStdString(s.description));
     q.addBindValue(QString::fromStdString(s.certificate_number));
     q.addBindValue(sql::toIsoDate(s.due_date));
+    q.addBindValue(s.calibrated_on ? QVariant(sql::toIsoDate(*s.calibrated_on))
+                                   : QVariant(QMetaType(QMetaType::QString)));
 }
 
 void bindSpec(QSqlQuery& q, const StandardRangeSpec& spec, const QString& context) {
@@ -94,6 +97,9 @@ std::vector<ReferenceStandard> query(const QSqlDatabase& db, const QString& cond
         s.description = sql::toStd(q.value(2));
         s.certificate_number = sql::toStd(q.value(3));
         s.due_date = sql::dateFrom(q.value(4));
+        if (!q.value(5).isNull()) {
+            s.calibrated_on = sql::dateFrom(q.value(5));
+        }
         index[s.id] = found.size();
         found.push_back(std::move(s));
     }
@@ -137,8 +143,9 @@ void StandardRepository::add(ReferenceStandard& standard) {
     const QSqlDatabase db = workbook_.database();
     Transaction transaction(workbook_);
     QSqlQuery q = sql::prepare(db, QStringLiteral("INSERT INTO reference_standards (asset_tag, "
-                                                  "description, certificate_number, due_date) "
-                                                  "VALUES (?, ?, ?, ?) RETURNING id"));
+                                                  "description, certificate_number, due_date, "
+                                                  "calibrated_on) VALUES (?, ?, ?, ?, ?) "
+                                                  "RETURNING id"));
     bindFields(q, standard);
     sql::exec(q, QStringLiteral("adding ") + where(standard));
     q.next();
@@ -155,7 +162,7 @@ void StandardRepository::update(const ReferenceStandard& standard) {
     Transaction transaction(workbook_);
     QSqlQuery q = sql::prepare(db, QStringLiteral("UPDATE reference_standards SET asset_tag = ?, "
                                                   "description = ?, certificate_number = ?, "
-                                                  "due_date = ? WHERE id = ?"));
+                                                  "due_date = ?, calibrated_on = ? WHERE id = ?"));
     bindFields(q, standard);
     q.addBindValue(qint64(standard.id));
     sql::exec(q, QStringLiteral("saving ") + where(standard));

@@ -2,6 +2,7 @@
 #include "app/gui/main_window.h"
 
 #include "app/gui/about_dialog.h"
+#include "app/gui/admin/standards_page.h"
 #include "app/gui/bench/bench_view.h"
 #include "app/gui/bench/session_chart_view.h"
 #include "app/gui/bench/session_setup_dialog.h"
@@ -96,6 +97,16 @@ void MainWindow::buildPages() {
     connect(register_, &RegisterPage::editRequested, this, &MainWindow::editInstrument);
 }
 
+StandardsPage* MainWindow::standards() {
+    if (standards_ == nullptr) {
+        standards_ = new StandardsPage(*workspace_, pages_);
+        pages_->addWidget(standards_);
+        connect(standards_, &StandardsPage::statusMessage, this, &MainWindow::report);
+        standards_->reload();
+    }
+    return standards_;
+}
+
 BenchView* MainWindow::bench() {
     // Built when first needed: the window is up sooner, and a reviewer may never need it.
     if (bench_ == nullptr) {
@@ -167,15 +178,17 @@ void MainWindow::buildMenus() {
     pagesBar->setObjectName(QStringLiteral("pagesBar"));
     pagesBar->setMovable(false);
     auto* group = new QActionGroup(this);
-    registerAction_ = pagesBar->addAction(tr("Register"));
-    benchAction_ = pagesBar->addAction(tr("Bench"));
-    for (QAction* action : {registerAction_, benchAction_}) {
+    const std::pair<Page, QString> pages[] = {{Page::Register, tr("Register")},
+                                              {Page::Standards, tr("Standards")},
+                                              {Page::Bench, tr("Bench")}};
+    for (const auto& [page, name] : pages) {
+        QAction* action = pagesBar->addAction(name);
         action->setCheckable(true);
         group->addAction(action);
+        pageActions_[page] = action;
+        connect(action, &QAction::triggered, this, [this, page = page] { showPage(page); });
     }
-    registerAction_->setChecked(true);
-    connect(registerAction_, &QAction::triggered, this, &MainWindow::showRegister);
-    connect(benchAction_, &QAction::triggered, this, &MainWindow::showBench);
+    pageActions_[Page::Register]->setChecked(true);
 
     QMenu* helpMenu = menuBar()->addMenu(tr("&Help"));
     QAction* about = helpMenu->addAction(tr("&About Meterwright"));
@@ -207,6 +220,9 @@ void MainWindow::updateForPerson() {
     startAction_->setEnabled(workspace_->can(Capability::Calibrate));
     // What the register offers depends on the person; what it lists does not.
     register_->updateActions();
+    if (standards_ != nullptr) {
+        standards_->reload(); // cheap: a handful of standards
+    }
     if (bench_ != nullptr && bench_->sessionId()) {
         // The bench follows the person: read-only for someone who may not calibrate.
         QString error;
@@ -308,13 +324,27 @@ void MainWindow::reloadRegisterQuietly() {
 }
 
 void MainWindow::showRegister() {
-    pages_->setCurrentWidget(register_);
-    registerAction_->setChecked(true);
+    showPage(Page::Register);
 }
 
 void MainWindow::showBench() {
-    pages_->setCurrentWidget(bench());
-    benchAction_->setChecked(true);
+    showPage(Page::Bench);
+}
+
+void MainWindow::showPage(Page page) {
+    QWidget* widget = register_;
+    switch (page) {
+    case Page::Register:
+        break;
+    case Page::Standards:
+        widget = standards();
+        break;
+    case Page::Bench:
+        widget = bench();
+        break;
+    }
+    pages_->setCurrentWidget(widget);
+    pageActions_.at(page)->setChecked(true);
 }
 
 void MainWindow::chooseWorkbook() {

@@ -8,6 +8,7 @@
 #include <QMainWindow>
 #include <QSettings>
 
+#include <map>
 #include <memory>
 #include <optional>
 
@@ -26,6 +27,7 @@ class BenchView;
 class InstrumentDetailPanel;
 class InstrumentListModel;
 class RegisterPage;
+class StandardsPage;
 class Workspace;
 struct SessionSetup;
 
@@ -38,7 +40,10 @@ public:
     Workspace& workspace() { return *workspace_; }
     storage::Workbook* workbook() const;
     RegisterPage* registerPage() const { return register_; }
-    BenchView* bench(); // the bench page, built on first use
+    BenchView* bench();         // the bench page, built on first use
+    StandardsPage* standards(); // the reference standards, built on first use
+    enum class Page { Register, Standards, Bench };
+    void showPage(Page page);
     InstrumentListModel* instrumentModel() const;
     InstrumentDetailPanel* detailPanel() const;
     QLabel* personLabel() const { return person_; }
@@ -98,8 +103,8 @@ private:
     QStackedWidget* pages_ = nullptr;
     RegisterPage* register_ = nullptr;
     BenchView* bench_ = nullptr;
-    QAction* registerAction_ = nullptr;
-    QAction* benchAction_ = nullptr;
+    StandardsPage* standards_ = nullptr;
+    std::map<Page, QAction*> pageActions_;
     QAction* startAction_ = nullptr;
     QAction* signOutAction_ = nullptr;
     QAction* peopleAction_ = nullptr;

@@ -1,5 +1,6 @@
 // Builds the register's rows from workbook data.
 #include "app/gui/register_rows.h"
+#include "app/gui/calendar_days.h"
 
 #include <QDate>
 
@@ -7,12 +8,6 @@
 
 namespace mw::gui {
 namespace {
-
-QString isoDate(std::chrono::sys_days day) {
-    const std::chrono::year_month_day ymd{day};
-    return QDate(int(ymd.year()), int(unsigned(ymd.month())), int(unsigned(ymd.day())))
-        .toString(Qt::ISODate);
-}
 
 QString toQString(std::string_view text) {
     return QString::fromUtf8(text.data(), static_cast<qsizetype>(text.size()));

@@ -37,6 +37,8 @@ struct ReferenceStandard {
     std::string asset_tag;
     std::string description;
     std::string certificate_number;
+    // The day the certificate's calibration was made; nullopt where it was not recorded.
+    std::optional<std::chrono::sys_days> calibrated_on;
     std::chrono::sys_days due_date{};
     std::vector<StandardRangeSpec> specs;
 

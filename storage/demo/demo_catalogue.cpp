@@ -296,6 +296,7 @@ std::vector<ReferenceStandard> demoStandards(std::chrono::sys_days today) {
         const DemoCertificate current =
             certificateHistory(static_cast<int>(i), today, today).back();
         standards[i].certificate_number = current.number;
+        standards[i].calibrated_on = current.issued - days(2);
         standards[i].due_date = current.due;
     }
     return standards;

@@ -65,6 +65,7 @@ void addRegister(Workbook& workbook, DemoStandards& standards,
         ReferenceStandard& standard = standards.register_rows[i];
         const DemoCertificate& first = standards.certificates[i].front();
         standard.certificate_number = first.number;
+        standard.calibrated_on = first.issued - std::chrono::days(2); // came back two days later
         standard.due_date = first.due;
         standardRepository.add(standard);
     }
@@ -188,6 +189,7 @@ private:
         const DemoCertificate& certificate =
             standards_.certificates[standardIndex][certificateIndex];
         standard.certificate_number = certificate.number;
+        standard.calibrated_on = certificate.issued - std::chrono::days(2);
         standard.due_date = certificate.due;
         workbook_.setActor(people_.administrator);
         storage::StandardRepository(workbook_).update(standard);

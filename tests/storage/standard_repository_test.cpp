@@ -36,6 +36,7 @@ TEST_CASE("a reference standard round-trips every field", "[standards]") {
     mw::ReferenceStandard recalibrated = written;
     recalibrated.certificate_number = "C-2026-0007";
     recalibrated.due_date = mwtest::date(2027, 1, 31);
+    recalibrated.calibrated_on = mwtest::date(2026, 1, 28);
     recalibrated.specs.pop_back();
     recalibrated.specs[1].percent_of_reading = 0.003;
     const auto idsBefore = mwtest::rawValues(temp.path(), "SELECT id FROM standard_specs ORDER BY "
@@ -50,6 +51,12 @@ TEST_CASE("a reference standard round-trips every field", "[standards]") {
                                          "'standard_specs' AND action = 'update' AND old_values "
                                          "LIKE '%0.004%' AND new_values LIKE '%0.003%'") ==
           QStringList{QStringLiteral("1")});
+
+    // A calibration after its own due date is refused by the database.
+    mw::ReferenceStandard backwards = recalibrated;
+    backwards.calibrated_on = mwtest::date(2027, 2, 1);
+    CHECK_THROWS_AS(standards.update(backwards), mw::storage::WorkbookError);
+    CHECK(standards.find(written.id) == recalibrated);
 
     mw::ReferenceStandard badUnit = written;
     badUnit.asset_tag = "STD-08";
