@@ -8,6 +8,8 @@
 #include "app/gui/bench/reading_grid_model.h"
 #include "app/gui/bench/reading_grid_view.h"
 #include "app/gui/bench/session_setup_dialog.h"
+#include "app/gui/desk/history_page.h"
+#include "app/gui/desk/review_page.h"
 #include "app/gui/gui_entry.h"
 #include "app/gui/main_window.h"
 #include "app/gui/register_page.h"
@@ -23,6 +25,7 @@
 #include <QDir>
 #include <QLineEdit>
 #include <QTabWidget>
+#include <QTableWidget>
 #include <QTemporaryDir>
 #include <QTest>
 
@@ -147,6 +150,26 @@ int main(int argc, char* argv[]) {
             mwtest::typeInto(grid, QString::number(applied + offset, 'f', 3));
         }
         save(window, folder, QStringLiteral("bench-guarded.png"));
+    }
+
+    // The reviewer's desk: the queue, one calibration under review with a point's budget, and a
+    // meter's history with its drift projected to the limit.
+    if (window.signIn(QStringLiteral("rowan"), QStringLiteral("demo-review"))) {
+        window.showPage(mw::gui::MainWindow::Page::Review);
+        mw::gui::ReviewPage* review = window.review();
+        if (review->queue()->rowCount() > 0) {
+            review->queue()->selectRow(0);
+        }
+        save(window, folder, QStringLiteral("review-queue.png"));
+        if (auto* tabs = review->view()->findChild<QTabWidget*>()) {
+            tabs->setCurrentIndex(1);
+            review->view()->grid()->setCurrentIndex(
+                review->view()->gridModel()->index(2, mw::gui::ReadingGridModel::Indicated));
+        }
+        save(window, folder, QStringLiteral("review-record.png"));
+        window.registerPage()->selectByTag(QStringLiteral("CFM-203"));
+        window.showHistoryOfSelected();
+        save(window, folder, QStringLiteral("history.png"));
     }
 
     // The administrator's instrument editor, a value refused beside its field.

@@ -6,6 +6,8 @@
 #include "app/gui/bench/bench_view.h"
 #include "app/gui/bench/session_chart_view.h"
 #include "app/gui/bench/session_setup_dialog.h"
+#include "app/gui/desk/history_page.h"
+#include "app/gui/desk/review_page.h"
 #include "app/gui/instrument_list_model.h"
 #include "app/gui/recent_workbooks.h"
 #include "app/gui/register_page.h"
@@ -180,7 +182,9 @@ void MainWindow::buildMenus() {
     auto* group = new QActionGroup(this);
     const std::pair<Page, QString> pages[] = {{Page::Register, tr("Register")},
                                               {Page::Standards, tr("Standards")},
-                                              {Page::Bench, tr("Bench")}};
+                                              {Page::Bench, tr("Bench")},
+                                              {Page::Review, tr("Review")},
+                                              {Page::History, tr("History")}};
     for (const auto& [page, name] : pages) {
         QAction* action = pagesBar->addAction(name);
         action->setCheckable(true);
@@ -222,6 +226,12 @@ void MainWindow::updateForPerson() {
     register_->updateActions();
     if (standards_ != nullptr) {
         standards_->reload(); // cheap: a handful of standards
+    }
+    if (review_ != nullptr) {
+        review_->reload(); // what may be approved follows the person
+    }
+    if (history_ != nullptr) {
+        history_->reload();
     }
     if (bench_ != nullptr && bench_->sessionId()) {
         // The bench follows the person: read-only for someone who may not calibrate.
@@ -341,6 +351,16 @@ void MainWindow::showPage(Page page) {
         break;
     case Page::Bench:
         widget = bench();
+        break;
+    case Page::Review:
+        widget = review();
+        review_->reload();
+        break;
+    case Page::History:
+        widget = history();
+        if (!history_->instrumentId()) {
+            history_->reload();
+        }
         break;
     }
     pages_->setCurrentWidget(widget);

@@ -24,6 +24,8 @@ class Workbook;
 namespace mw::gui {
 
 class BenchView;
+class HistoryPage;
+class ReviewPage;
 class InstrumentDetailPanel;
 class InstrumentListModel;
 class RegisterPage;
@@ -42,7 +44,9 @@ public:
     RegisterPage* registerPage() const { return register_; }
     BenchView* bench();         // the bench page, built on first use
     StandardsPage* standards(); // the reference standards, built on first use
-    enum class Page { Register, Standards, Bench };
+    ReviewPage* review();       // the review desk, built on first use
+    HistoryPage* history();     // one instrument over the years, built on first use
+    enum class Page { Register, Standards, Bench, Review, History };
     void showPage(Page page);
     InstrumentListModel* instrumentModel() const;
     InstrumentDetailPanel* detailPanel() const;
@@ -61,6 +65,8 @@ public:
     bool openCalibration(std::int64_t sessionId, QString* error);
     void showRegister();
     void showBench();
+    // The history page for the instrument selected in the register.
+    void showHistoryOfSelected();
     // Opens the workbook opened last, if it still exists, asking who is working (on start).
     void openLastWorkbook();
     // Writes a new workbook as `dialog`-like fields say and opens it signed in as its
@@ -97,6 +103,9 @@ private:
     void buildInstrumentMenu();
     // The record of the calibration on the bench: print with preview, or export as PDF.
     void printOrExportRecord(bool toPdf);
+    // The calibration the page shown is about (bench, review, history), if any.
+    std::optional<std::int64_t> sessionOnShow() const;
+    void printOrExportHistory(std::int64_t instrumentId, bool toPdf);
 
     std::unique_ptr<Workspace> workspace_;
     SignInThrottle throttle_;
@@ -104,6 +113,8 @@ private:
     RegisterPage* register_ = nullptr;
     BenchView* bench_ = nullptr;
     StandardsPage* standards_ = nullptr;
+    ReviewPage* review_ = nullptr;
+    HistoryPage* history_ = nullptr;
     std::map<Page, QAction*> pageActions_;
     QAction* startAction_ = nullptr;
     QAction* signOutAction_ = nullptr;

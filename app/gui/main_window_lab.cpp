@@ -113,36 +113,50 @@ void MainWindow::buildInstrumentMenu() {
         }
     });
     menu->addSeparator();
+    QAction* history = menu->addAction(tr("Its &history and drift"));
+    history->setShortcut(QKeySequence(Qt::CTRL | Qt::Key_H));
+    connect(history, &QAction::triggered, this, &MainWindow::showHistoryOfSelected);
     QAction* print = menu->addAction(tr("&Print its history report…"));
     connect(print, &QAction::triggered, this, [this] {
-        if (const auto id = register_->selectedInstrument(); id && workspace_->isOpen()) {
-            record::printInstrumentHistory(this, *workspace_->workbook(), *id);
+        if (const auto id = register_->selectedInstrument()) {
+            printOrExportHistory(*id, false);
         }
     });
     QAction* pdf = menu->addAction(tr("Export its history report as P&DF…"));
     connect(pdf, &QAction::triggered, this, [this] {
-        if (const auto id = register_->selectedInstrument(); id && workspace_->isOpen()) {
-            const QString written =
-                record::exportInstrumentHistoryPdf(this, *workspace_->workbook(), *id);
-            if (!written.isEmpty()) {
-                report(tr("History report written to %1").arg(written));
-            }
+        if (const auto id = register_->selectedInstrument()) {
+            printOrExportHistory(*id, true);
         }
     });
 }
 
-void MainWindow::printOrExportRecord(bool toPdf) {
-    if (bench_ == nullptr || !bench_->sessionId() || !workspace_->isOpen()) {
-        report(tr("Open a calibration on the bench first (a record not yet approved prints as a "
-                  "draft)."));
+void MainWindow::printOrExportHistory(std::int64_t instrumentId, bool toPdf) {
+    if (!workspace_->isOpen()) {
         return;
     }
     if (!toPdf) {
-        record::printSessionRecord(this, *workspace_->workbook(), *bench_->sessionId());
+        record::printInstrumentHistory(this, *workspace_->workbook(), instrumentId);
         return;
     }
     const QString written =
-        record::exportSessionRecordPdf(this, *workspace_->workbook(), *bench_->sessionId());
+        record::exportInstrumentHistoryPdf(this, *workspace_->workbook(), instrumentId);
+    if (!written.isEmpty()) {
+        report(tr("History report written to %1").arg(written));
+    }
+}
+
+void MainWindow::printOrExportRecord(bool toPdf) {
+    const std::optional<std::int64_t> session = sessionOnShow();
+    if (!session || !workspace_->isOpen()) {
+        report(tr("Open a calibration on the bench, in review or in a history first (a record "
+                  "not yet approved prints as a draft)."));
+        return;
+    }
+    if (!toPdf) {
+        record::printSessionRecord(this, *workspace_->workbook(), *session);
+        return;
+    }
+    const QString written = record::exportSessionRecordPdf(this, *workspace_->workbook(), *session);
     if (!written.isEmpty()) {
         report(tr("Record written to %1").arg(written));
     }

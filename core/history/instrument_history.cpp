@@ -240,6 +240,8 @@ InstrumentHistory buildHistory(const Instrument& instrument,
         row.sessionId = session->id;
         row.revision = session->revision;
         row.state = session->state;
+        row.supersedesId = session->supersedes_id;
+        row.amendmentReason = session->amendment_reason;
         row.startedAt = session->started_at;
         row.approvedAt = session->approved_at;
         row.technician = nameOf(users, session->technician_id);
@@ -262,6 +264,16 @@ InstrumentHistory buildHistory(const Instrument& instrument,
             }
         }
         history.rows.push_back(std::move(row));
+    }
+    for (const HistoryRow& amending : history.rows) {
+        if (amending.supersedesId) {
+            for (HistoryRow& amended : history.rows) {
+                if (amended.sessionId == *amending.supersedesId &&
+                    amended.state == SessionState::Superseded) {
+                    amended.supersededBy = amending.sessionId;
+                }
+            }
+        }
     }
     for (const RangeSpec& range : instrument.ranges) {
         for (auto& [key, point] : points) { // std::map: ascending nominal within a range

@@ -25,6 +25,9 @@ struct HistoryRow {
     std::int64_t sessionId = 0;
     int revision = 1;
     SessionState state = SessionState::Draft;
+    std::optional<std::int64_t> supersedesId; // the record this revision amends
+    std::string amendmentReason;
+    std::optional<std::int64_t> supersededBy; // the approved revision that replaced it
     Timestamp startedAt{};
     std::optional<Timestamp> approvedAt;
     // The evaluator's outcomes; nullopt for work not yet submitted (draft, returned), and for a

@@ -160,6 +160,9 @@ TEST_CASE("superseded revisions and unapproved work stay out of the analysis") {
     CHECK_FALSE(history.rows[1].counted);
     CHECK(history.rows[1].asFound == Outcome::Pass); // still evaluated for its row
     CHECK(history.rows[2].revision == 2);
+    CHECK(history.rows[1].supersededBy == std::optional<std::int64_t>(3)); // links both ways
+    CHECK(history.rows[2].supersedesId == std::optional<std::int64_t>(2));
+    CHECK_FALSE(history.rows[0].supersededBy);
     CHECK_FALSE(history.rows[3].counted);
     const PointHistory& top = pointAt(history, 10.0);
     REQUIRE(top.asFound.size() == 2);

@@ -34,6 +34,21 @@
 namespace mw::gui {
 namespace {
 
+// Where the session stands among the revisions of its record.
+QString revisionLine(const CalibrationSession& s) {
+    QString line;
+    if (s.supersedes_id) {
+        line += QObject::tr("<br>Revision %1: amends an earlier record — %2")
+                    .arg(s.revision)
+                    .arg(QString::fromStdString(s.amendment_reason).toHtmlEscaped());
+    }
+    if (s.state == SessionState::Superseded) {
+        line += QObject::tr("<br><b>⊘ Superseded:</b> a later revision replaces this record; "
+                            "the instrument's history links to it.");
+    }
+    return line;
+}
+
 QString text(std::string_view value) {
     return QString::fromUtf8(value.data(), qsizetype(value.size()));
 }
@@ -189,6 +204,15 @@ void BenchView::build() {
     connect(submit_, &QPushButton::clicked, this, &BenchView::submitRequested);
 }
 
+void BenchView::setViewOnly(const QString& emptyText) {
+    emptyText_ = emptyText;
+    for (QWidget* w :
+         std::initializer_list<QWidget*>{addPoint_, movePoint_, removePoint_, setup_, submit_}) {
+        w->hide();
+    }
+    refresh();
+}
+
 void BenchView::openSession(std::int64_t sessionId) {
     bench_ = std::make_unique<BenchSession>(workspace_, sessionId);
     model_->setDecimalComma(workspace_.lab().decimal_comma);
@@ -257,8 +281,10 @@ void BenchView::refresh() {
         w->setEnabled(open);
     }
     if (!open) {
-        header_->setText(tr("<b>No calibration open.</b> Choose an instrument in the register "
-                            "and start or continue its calibration."));
+        header_->setText(emptyText_.isEmpty()
+                             ? tr("<b>No calibration open.</b> Choose an instrument in the "
+                                  "register and start or continue its calibration.")
+                             : emptyText_);
         caution_->hide();
         overall_->clear();
         statement_->clear();
@@ -285,7 +311,8 @@ void BenchView::refresh() {
                          .arg(s.return_comment.empty() || s.state != SessionState::Returned
                                   ? QString()
                                   : tr("<br><b>Returned by the reviewer:</b> %1")
-                                        .arg(text(s.return_comment).toHtmlEscaped())));
+                                        .arg(text(s.return_comment).toHtmlEscaped()))
+                         .append(revisionLine(s)));
     const SessionEvaluation& evaluation = bench_->evaluation();
     if (evaluation.hazardCaution) {
         caution_->setText(QStringLiteral("⚠ ") + text(*evaluation.hazardCaution) +
@@ -328,9 +355,12 @@ void BenchView::refreshResults() {
     auto words = [](const std::optional<Outcome>& outcome) {
         return outcome ? text(displayName(*outcome)) : tr("—");
     };
+    // Work still open is judged "so far"; submitted work has its outcome.
+    const QString heading = bench_->editable() ? tr("Outcome so far") : tr("Outcome");
     overall_->setText(
-        tr("<b>Outcome so far: %1</b> (as-found: %2, as-left: %3)%4")
-            .arg(words(evaluation.overall), words(evaluation.asFound), words(evaluation.asLeft))
+        tr("<b>%1: %2</b> (as-found: %3, as-left: %4)%5")
+            .arg(heading, words(evaluation.overall), words(evaluation.asFound),
+                 words(evaluation.asLeft))
             .arg(evaluation.problems.empty()
                      ? QString()
                      : tr("<br>⚠ %1").arg(text(evaluation.problems.front()).toHtmlEscaped())));

@@ -44,6 +44,9 @@ public:
     const BenchSession* bench() const { return bench_.get(); }
 
     void showRange(std::int64_t rangeId, Phase phase);
+    // For showing finished work read-only (review, history): hides the buttons that change
+    // the plan or the session, and says `emptyText` when nothing is open.
+    void setViewOnly(const QString& emptyText);
 
     // Submits after checking completeness; false with the reason in `message` (what is missing,
     // or what the workbook refused). Asks nothing: the window confirms before calling it.
@@ -86,6 +89,7 @@ private:
 
     Workspace& workspace_;
     std::unique_ptr<BenchSession> bench_;
+    QString emptyText_;
     QLabel* caution_ = nullptr;
     QLabel* header_ = nullptr;
     QComboBox* range_ = nullptr;

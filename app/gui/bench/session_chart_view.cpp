@@ -242,12 +242,16 @@ void SessionChartView::showChart(const RangeChart& data, const QString& unitLabe
     const QPalette palette = QApplication::palette();
     bars_->setBars(std::move(bars), palette.color(QPalette::Highlight),
                    isDark(palette) ? QColor(0xff, 0xb0, 0x40) : QColor(0xb0, 0x50, 0x00));
+    // A new range with the old tick step (a 10 V range after a 1 mA one) would lay out tens of
+    // thousands of ticks for a moment: the step is made coarse first, then set.
+    x_->setTickInterval(std::max(std::abs(right - left), x_->max() - x_->min()));
     x_->setRange(left, right);
     setRoundTicks(x_, niceStep(data.upper - data.lower));
     x_->setTitleText(tr("Applied (%1)").arg(unitLabel));
     const double extent = data.yExtent > 0.0 ? data.yExtent : 1.0;
     const double yStep = niceStep(extent);
     const double yEdge = std::ceil(extent / yStep - 1e-9) * yStep;
+    y_->setTickInterval(std::max(2.0 * yEdge, y_->max() - y_->min()));
     y_->setRange(-yEdge, yEdge);
     setRoundTicks(y_, yStep);
     // Markers shown or hidden above: the legend lays itself out again only when told to.
