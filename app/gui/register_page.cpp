@@ -64,6 +64,7 @@ RegisterPage::RegisterPage(Workspace& workspace, QWidget* parent)
     detail_ = new InstrumentDetailPanel(right);
     rightLayout->addWidget(detail_, 1);
     openNote_ = new QLabel(right);
+    openNote_->setObjectName(QStringLiteral("registerOpenNote"));
     openNote_->setWordWrap(true);
     rightLayout->addWidget(openNote_);
     auto* buttons = new QHBoxLayout;
@@ -224,9 +225,23 @@ void RegisterPage::updateActions() {
     add_->setToolTip(administer ? QString() : why);
     edit_->setToolTip(administer ? QString() : why);
     open_->setEnabled(open.has_value() && workspace_.user().has_value());
-    openNote_->setText(open ? tr("This instrument has a calibration open: continue it (or view "
-                                 "it while it awaits review) rather than start another.")
-                            : QString());
+    QString note = open ? tr("This instrument has a calibration open: continue it (or view "
+                             "it while it awaits review) rather than start another.")
+                        : QString();
+    if (open) {
+        try {
+            // The reviewer's reason belongs where the technician looks first.
+            const auto session = storage::SessionRepository(*workspace_.workbook()).find(*open);
+            if (session && session->state == SessionState::Returned &&
+                !session->return_comment.empty()) {
+                note = tr("↩ Returned by the reviewer: %1")
+                           .arg(QString::fromStdString(session->return_comment));
+            }
+        } catch (const std::exception&) {
+            // The note is a courtesy; opening the session reports what cannot be read.
+        }
+    }
+    openNote_->setText(note);
     if (!workspace_.user()) {
         start_->setToolTip(tr("Sign in to calibrate."));
     } else if (!workspace_.can(Capability::Calibrate)) {

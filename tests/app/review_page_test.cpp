@@ -8,6 +8,7 @@
 #include "app/gui/bench/session_setup_dialog.h"
 #include "app/gui/desk/desk_dialogs.h"
 #include "app/gui/desk/review_page.h"
+#include "app/gui/register_page.h"
 #include "storage/instrument_repository.h"
 #include "storage/session_repository.h"
 #include "storage/standard_repository.h"
@@ -161,6 +162,14 @@ TEST_CASE("a return needs a comment, and the technician sees it") {
     CHECK(returned->return_comment == "Repeat point 3 down-scale: tapped?");
 
     REQUIRE(lab.window.signIn(QStringLiteral("tess"), QStringLiteral("demo-tech")));
+    REQUIRE(lab.window.registerPage()->selectByTag(
+        QString::fromStdString(mw::storage::InstrumentRepository(lab.workbook())
+                                   .find(returned->instrument_id)
+                                   ->asset_tag)));
+    CHECK(lab.window.registerPage()
+              ->findChild<QLabel*>(QStringLiteral("registerOpenNote"))
+              ->text()
+              .contains(QStringLiteral("Repeat point 3 down-scale")));
     QString error;
     REQUIRE(lab.window.openCalibration(id, &error));
     CHECK(lab.window.bench()
