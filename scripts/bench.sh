@@ -29,3 +29,7 @@ if [ "${1:-}" = "--keep" ] && [ -n "${2:-}" ]; then
     large=(--large "$2")
 fi
 QT_QPA_PLATFORM=offscreen "$MW_ROOT/build/release/bench/app_startup_bench" "${large[@]}"
+echo
+echo "== one instrument's history opened, buildHistory included (target: under 100 ms and flat"
+echo "   from 10,000 to 1,000,000 readings); the large workbook is the one --keep kept, when given"
+QT_QPA_PLATFORM=offscreen "$MW_ROOT/build/release/bench/storage_history_bench" "${large[@]}"

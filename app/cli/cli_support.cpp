@@ -1,6 +1,7 @@
 // Shared plumbing for headless commands.
 #include "app/cli/cli_support.h"
 
+#include <QDate>
 #include <QJsonDocument>
 #include <QTextStream>
 
@@ -76,6 +77,26 @@ QString requireText(const QCommandLineParser& parser, const QString& option) {
         throw UsageError(QStringLiteral("option --%1 is required").arg(option));
     }
     return parser.value(option);
+}
+
+std::optional<std::chrono::sys_days> optionalDate(const QCommandLineParser& parser,
+                                                  const QString& option) {
+    if (!parser.isSet(option)) {
+        return std::nullopt;
+    }
+    const QString text = parser.value(option);
+    const QDate date = QDate::fromString(text, Qt::ISODate);
+    if (!date.isValid()) {
+        throw UsageError(
+            QStringLiteral("option --%1 \"%2\": expected a date as YYYY-MM-DD").arg(option, text));
+    }
+    return std::chrono::sys_days{std::chrono::year{date.year()} /
+                                 static_cast<unsigned>(date.month()) /
+                                 static_cast<unsigned>(date.day())};
+}
+
+QString fromEngine(std::string_view text) {
+    return QString::fromUtf8(text.data(), static_cast<qsizetype>(text.size()));
 }
 
 QString chooseOne(const QCommandLineParser& parser, const QString& option,

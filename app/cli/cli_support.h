@@ -9,9 +9,11 @@
 #include <QString>
 #include <QStringList>
 
+#include <chrono>
 #include <optional>
 #include <stdexcept>
 #include <string>
+#include <string_view>
 
 namespace mw::cli {
 
@@ -43,6 +45,13 @@ std::optional<double> optionalQuantity(const QCommandLineParser& parser, const Q
 
 // Reads a required option's raw text; UsageError when it is missing.
 QString requireText(const QCommandLineParser& parser, const QString& option);
+
+// Reads an option given as a day, YYYY-MM-DD; nullopt when absent. The error names the option.
+std::optional<std::chrono::sys_days> optionalDate(const QCommandLineParser& parser,
+                                                  const QString& option);
+
+// Text the engine wrote (UTF-8) as a QString.
+QString fromEngine(std::string_view text);
 
 // Reads an option that must be one of `choices` (or `fallback` when absent).
 QString chooseOne(const QCommandLineParser& parser, const QString& option,

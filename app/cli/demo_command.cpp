@@ -6,8 +6,6 @@
 #include "storage/demo/demo_workbook.h"
 
 #include <QCommandLineParser>
-#include <QDate>
-#include <QDateTime>
 #include <QFileInfo>
 #include <QJsonObject>
 
@@ -19,18 +17,10 @@ namespace {
 const QString kCommand = QStringLiteral("demo");
 
 std::chrono::sys_days lastDay(const QCommandLineParser& parser) {
-    QDate date = QDateTime::currentDateTimeUtc().date();
-    if (parser.isSet(QStringLiteral("as-of"))) {
-        const QString text = parser.value(QStringLiteral("as-of"));
-        date = QDate::fromString(text, Qt::ISODate);
-        if (!date.isValid()) {
-            throw UsageError(
-                QStringLiteral("option --as-of \"%1\": expected a date as YYYY-MM-DD").arg(text));
-        }
+    if (const auto day = optionalDate(parser, QStringLiteral("as-of"))) {
+        return *day;
     }
-    return std::chrono::sys_days{std::chrono::year{date.year()} /
-                                 static_cast<unsigned>(date.month()) /
-                                 static_cast<unsigned>(date.day())};
+    return std::chrono::floor<std::chrono::days>(std::chrono::system_clock::now());
 }
 
 QJsonObject toJson(const QString& path, const demo::DemoSummary& s) {

@@ -4,6 +4,7 @@
 #include "app/cli/cli_support.h"
 #include "app/cli/command_table.h"
 #include "app/cli/demo_command.h"
+#include "app/cli/desk_commands.h"
 #include "app/cli/record_commands.h"
 #include "app/cli/session_commands.h"
 #include "app/cli/workbook_access.h"
@@ -137,6 +138,9 @@ std::vector<Command> workbookCommands() {
          QStringLiteral("upgrade a workbook of an earlier version in place (a copy is kept)"),
          runUpgrade},
         sessionsCommand(),
+        historyCommand(),
+        dueCommand(),
+        reviewCommand(),
         backupCommand(),
         restoreCommand(),
     };

@@ -186,7 +186,7 @@ SealedInputs sealInputs(const Instrument& instrument, const CalibrationSession& 
 
 EvaluationInput evaluationInputFor(const Instrument& instrument, const RangeSpec& range,
                                    const CalibrationSession& session, const SealedInputs& inputs,
-                                   Phase phase) {
+                                   Phase phase, RectifierCurve curve) {
     const RangeAsUsed* used = findRange(inputs, range.id);
     if (used == nullptr) {
         throw std::invalid_argument("range \"" + range.label +
@@ -238,7 +238,9 @@ EvaluationInput evaluationInputFor(const Instrument& instrument, const RangeSpec
                 {r.applied, *r.indicated, r.direction, r.repeat, r.point_index});
         }
     }
-    input.predictedError = predictedCurve(instrument, range, *used, ambient, input.readings);
+    if (curve == RectifierCurve::Predicted) {
+        input.predictedError = predictedCurve(instrument, range, *used, ambient, input.readings);
+    }
     if (used->resistor_ohms && *used->resistor_ohms > 0.0) {
         RangeResistor resistor;
         resistor.presentOhms = *used->resistor_ohms;
@@ -250,7 +252,7 @@ EvaluationInput evaluationInputFor(const Instrument& instrument, const RangeSpec
 }
 
 SessionEvaluation evaluateSession(const Instrument& instrument, const CalibrationSession& session,
-                                  const SealedInputs& inputs) {
+                                  const SealedInputs& inputs, RectifierCurve curve) {
     SessionEvaluation evaluation;
     evaluation.settingsRecorded = session.settings.has_value();
     evaluation.hazardCaution = hazardOf(instrument, session, inputs);
@@ -273,7 +275,7 @@ SessionEvaluation evaluateSession(const Instrument& instrument, const Calibratio
             part.phase = phase;
             try {
                 const EvaluationInput input =
-                    evaluationInputFor(instrument, range, session, inputs, phase);
+                    evaluationInputFor(instrument, range, session, inputs, phase, curve);
                 if (const RangeAsUsed* used = findRange(inputs, range.id); used->reference) {
                     part.reference =
                         describeChoice({*used->reference, used->reference_shunt}, inputs.specs);

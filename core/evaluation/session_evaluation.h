@@ -53,16 +53,22 @@ struct SessionEvaluation {
     bool settingsRecorded = true;
 };
 
+// Whether a rectifier range's input carries the error curve its diodes predict. The curve only
+// informs the advice and the chart, never a result or an outcome, and costs a solve of the
+// circuit per reading: what shows no advice (the history of an instrument) leaves it out.
+enum class RectifierCurve { Predicted, Omitted };
+
 // Evaluates every range and phase of `session` with `inputs` (its sealed copies, or
 // sealInputs() of the register for a draft). Never throws for bad readings: each range that
 // cannot be evaluated is named in `problems`.
 SessionEvaluation evaluateSession(const Instrument& instrument, const CalibrationSession& session,
-                                  const SealedInputs& inputs);
+                                  const SealedInputs& inputs,
+                                  RectifierCurve curve = RectifierCurve::Predicted);
 
 // The evaluation input of one range and phase (exposed for the bench's live updates and for
 // tests); throws std::invalid_argument when the range has no entry in `inputs`.
 EvaluationInput evaluationInputFor(const Instrument& instrument, const RangeSpec& range,
                                    const CalibrationSession& session, const SealedInputs& inputs,
-                                   Phase phase);
+                                   Phase phase, RectifierCurve curve = RectifierCurve::Predicted);
 
 } // namespace mw

@@ -249,8 +249,10 @@ InstrumentHistory buildHistory(const Instrument& instrument,
         row.counted = session->state == SessionState::Approved;
         if (submitted(*session)) {
             const EvaluationBasis basis = evaluationBasis(instrument, *session, registerStandards);
+            // The history shows no advice, so the diode curve (a circuit solve per reading of
+            // a rectifier range) is left out; results and outcomes are the same without it.
             const SessionEvaluation evaluation =
-                evaluateSession(instrument, *session, basis.inputs);
+                evaluateSession(instrument, *session, basis.inputs, RectifierCurve::Omitted);
             row.asFound = evaluation.asFound;
             row.asLeft = evaluation.asLeft;
             row.overall = evaluation.overall;

@@ -85,7 +85,8 @@ double worstErrorFraction(const Instrument& instrument, const std::vector<Readin
     return worst;
 }
 
-MeterSimulation::MeterSimulation(const Instrument& instrument, std::uint64_t seed, bool fastDrift)
+MeterSimulation::MeterSimulation(const Instrument& instrument, std::uint64_t seed, bool fastDrift,
+                                 std::optional<ScriptedDrift> script)
     : instrument_(instrument)
     , random_(seed)
     , class_(instrument.accuracy_class) {
@@ -105,13 +106,22 @@ MeterSimulation::MeterSimulation(const Instrument& instrument, std::uint64_t see
         }
         ranges_.push_back(state);
     }
+    if (script) {
+        zero_pct_ *= 0.3;
+        nonlinear_pct_ *= 0.3;
+        span_pct_ = script->startPct;
+        span_rate_pct_ = script->ratePctPerYear;
+        walk_ = 0.005;
+        wear_ = 0.0;
+        adjustAbove_ = 1.0;
+    }
 }
 
 void MeterSimulation::age(int days) {
     const double years = days / 365.25;
-    span_pct_ += span_rate_pct_ * years + random_.normal(0.0, 0.05 * class_ * std::sqrt(years));
-    zero_pct_ += random_.normal(0.0, 0.05 * class_ * std::sqrt(years));
-    friction_pct_ += 0.01 * class_ * years;
+    span_pct_ += span_rate_pct_ * years + random_.normal(0.0, walk_ * class_ * std::sqrt(years));
+    zero_pct_ += random_.normal(0.0, walk_ * class_ * std::sqrt(years));
+    friction_pct_ += wear_ * class_ * years;
     for (RangeState& range : ranges_) {
         range.span_pct += range.span_rate_pct * years;
     }
@@ -240,7 +250,7 @@ SessionContent MeterSimulation::calibrate(Timestamp start, bool firstVisit) {
     content.readings = asFound;
     const double worst = worstErrorFraction(instrument_, asFound, Phase::AsFound);
     // Close to the limit is adjusted too, so that the meter lasts its interval (common practice).
-    if (worst > 0.75) {
+    if (worst > adjustAbove_) {
         adjust(start + std::chrono::minutes(40), asFound, content);
         const std::vector<Reading> asLeft = run(Phase::AsLeft);
         content.readings.insert(content.readings.end(), asLeft.begin(), asLeft.end());

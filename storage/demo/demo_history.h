@@ -7,6 +7,7 @@
 #include "storage/demo/demo_random.h"
 
 #include <cstdint>
+#include <optional>
 #include <vector>
 
 namespace mw::demo {
@@ -25,11 +26,20 @@ struct SessionContent {
 double worstErrorFraction(const Instrument& instrument, const std::vector<Reading>& readings,
                           Phase phase);
 
+// A meter given a steady part in the history screens: its span error starts at `startPct` and
+// changes by `ratePctPerYear` (both in % of the fiducial value), with little randomness besides,
+// and it is adjusted only when found out of tolerance.
+struct ScriptedDrift {
+    double startPct = 0.0;
+    double ratePctPerYear = 0.0;
+};
+
 class MeterSimulation {
 public:
     // `instrument` must have its range ids. A fast-drifting meter drifts by most of its class
     // index a year, so it is found out of tolerance now and then.
-    MeterSimulation(const Instrument& instrument, std::uint64_t seed, bool fastDrift);
+    MeterSimulation(const Instrument& instrument, std::uint64_t seed, bool fastDrift,
+                    std::optional<ScriptedDrift> script = std::nullopt);
 
     // Time in service since the last calibration.
     void age(int days);
@@ -67,6 +77,9 @@ private:
     double friction_pct_ = 0.0;
     double rectifier_pct_ = 0.0; // low-end loss of a rectifier meter
     bool damaged_ = false;
+    double walk_ = 0.05;        // random walk of zero and span, class index per sqrt(year)
+    double wear_ = 0.01;        // growth of friction, class index per year
+    double adjustAbove_ = 0.75; // share of the limit above which the technician adjusts
     std::vector<RangeState> ranges_;
 };
 

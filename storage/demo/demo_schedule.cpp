@@ -27,28 +27,35 @@ using std::chrono::sys_days;
 
 enum class Part { None, Submitted, SubmittedOverdueStandard, Returned, Draft, Amended, Damaged };
 
+// How a meter's error moves over the years. Two meters play a steady part for the history
+// screens: one drifts toward its limit (a significant trend whose projection reaches the limit
+// before it is due again), one holds still (no significant drift).
+enum class Drift { Random, Fast, TowardLimit, Still };
+
 struct Profile {
     Part part = Part::None;
-    bool fastDrift = false;
+    Drift drift = Drift::Random;
     int latestLagDays = -1; // days before today of the latest visit; -1: drawn at random
 };
 
 Profile profileOf(const std::string& tag, int intervalDays) {
     static const std::map<std::string, Profile> parts{
-        {"CFM-103", {Part::Submitted, false, 3}},
-        {"CFM-204", {Part::SubmittedOverdueStandard, false, 2}},
-        {"CFM-502", {Part::Submitted, true, 6}},
-        {"CFM-301", {Part::Returned, false, 9}},
-        {"CFM-402", {Part::Draft, false, 1}},
-        {"CFM-201", {Part::Amended, false, -1}},
-        {"CFM-106", {Part::Damaged, false, 75}},
-        {"CFM-105", {Part::None, false, 700}}, // retired since
-        {"CFM-102", {Part::None, true, -1}},
-        {"CFM-302", {Part::None, true, -1}},
-        {"CFM-403", {Part::None, true, -1}},
+        {"CFM-103", {Part::Submitted, Drift::Random, 3}},
+        {"CFM-204", {Part::SubmittedOverdueStandard, Drift::Random, 2}},
+        {"CFM-502", {Part::Submitted, Drift::Fast, 6}},
+        {"CFM-301", {Part::Returned, Drift::Random, 9}},
+        {"CFM-402", {Part::Draft, Drift::Random, 1}},
+        {"CFM-201", {Part::Amended, Drift::Random, -1}},
+        {"CFM-106", {Part::Damaged, Drift::Random, 75}},
+        {"CFM-105", {Part::None, Drift::Random, 700}}, // retired since
+        {"CFM-102", {Part::None, Drift::Fast, -1}},
+        {"CFM-302", {Part::None, Drift::Fast, -1}},
+        {"CFM-403", {Part::None, Drift::Fast, -1}},
+        {"CFM-205", {Part::None, Drift::TowardLimit, -1}},
     };
     if (tag == "CFM-104") {
-        return {Part::None, false, intervalDays + 45}; // out on loan, now overdue
+        // Out on loan, now overdue; steady for years before that.
+        return {Part::None, Drift::Still, intervalDays + 45};
     }
     const auto it = parts.find(tag);
     return it == parts.end() ? Profile{} : it->second;
@@ -64,6 +71,23 @@ sys_days workingDay(sys_days day) {
         return day - days(2);
     }
     return day;
+}
+
+// The span error of a meter with a steady part, in % of the fiducial value: toward the limit,
+// it reaches 80 % of the limit at its latest visit, rising by 30 % of the limit a year, so the
+// fitted line reaches the limit some eight months later, before the meter is due again.
+std::optional<ScriptedDrift> scriptOf(const Instrument& instrument, Drift drift,
+                                      const std::vector<sys_days>& visits) {
+    const double limitPct = instrument.accuracy_class;
+    if (drift == Drift::Still) {
+        return ScriptedDrift{0.2 * limitPct, 0.0};
+    }
+    if (drift != Drift::TowardLimit || visits.empty()) {
+        return std::nullopt;
+    }
+    const double years = (visits.back() - visits.front()).count() / 365.25;
+    const double rate = 0.3 * limitPct;
+    return ScriptedDrift{0.8 * limitPct - rate * years, rate};
 }
 
 std::vector<sys_days> visitDays(const Instrument& instrument, const Profile& profile,
@@ -275,9 +299,10 @@ std::vector<PlannedSession> planSessions(const std::vector<Instrument>& instrume
         const Instrument& instrument = instruments[i];
         const Profile profile = profileOf(instrument.asset_tag, instrument.interval_days);
         DemoRandom random(seed + 1000 * (i + 1));
-        MeterSimulation meter(instrument, seed ^ (0x9E3779B97F4A7C15ULL * (i + 1)),
-                              profile.fastDrift);
         const std::vector<sys_days> visits = visitDays(instrument, profile, today, random);
+        MeterSimulation meter(instrument, seed ^ (0x9E3779B97F4A7C15ULL * (i + 1)),
+                              profile.drift == Drift::Fast,
+                              scriptOf(instrument, profile.drift, visits));
         std::size_t amendedVisit = visits.size();
         if (profile.part == Part::Amended && visits.size() > 1) {
             const sys_days target = today - days(730);

@@ -222,3 +222,32 @@ TEST_CASE("an amendment keeps the copies of the record it amends") {
     CHECK(widened.specs.size() == 3);
     CHECK(widened.specs[0] == sealed.specs[0]);
 }
+
+TEST_CASE("leaving out the rectifier curve changes no result, only what the advice rests on") {
+    CalibrationSession s = adjustedSession();
+    for (double v : {50.0, 100.0, 150.0, 200.0, 250.0}) {
+        read(s, 12, Phase::AsFound, v, -0.004 * v);
+    }
+    const SealedInputs inputs = sealInputs(meter(), s, register_());
+    const SessionEvaluation full = evaluateSession(meter(), s, inputs);
+    const SessionEvaluation lean = evaluateSession(meter(), s, inputs, RectifierCurve::Omitted);
+    CHECK(lean.overall == full.overall);
+    CHECK(lean.asFound == full.asFound);
+    CHECK(lean.asLeft == full.asLeft);
+    REQUIRE(lean.ranges.size() == full.ranges.size());
+    for (std::size_t i = 0; i < full.ranges.size(); ++i) {
+        REQUIRE(full.ranges[i].result);
+        REQUIRE(lean.ranges[i].result);
+        const auto& a = full.ranges[i].result->points;
+        const auto& b = lean.ranges[i].result->points;
+        REQUIRE(a.size() == b.size());
+        for (std::size_t k = 0; k < a.size(); ++k) {
+            CHECK(a[k].error == b[k].error);
+            CHECK(a[k].decision == b[k].decision);
+        }
+    }
+    const RangeSpec& ac = meter().ranges[1];
+    CHECK(evaluationInputFor(meter(), ac, s, inputs, Phase::AsFound).predictedError);
+    CHECK_FALSE(evaluationInputFor(meter(), ac, s, inputs, Phase::AsFound, RectifierCurve::Omitted)
+                    .predictedError);
+}
