@@ -167,9 +167,11 @@ int main(int argc, char* argv[]) {
                 review->view()->gridModel()->index(2, mw::gui::ReadingGridModel::Indicated));
         }
         save(window, folder, QStringLiteral("review-record.png"));
-        window.registerPage()->selectByTag(QStringLiteral("CFM-203"));
+        window.registerPage()->selectByTag(QStringLiteral("CFM-205"));
         window.showHistoryOfSelected();
         save(window, folder, QStringLiteral("history.png"));
+        window.showPage(mw::gui::MainWindow::Page::Due);
+        save(window, folder, QStringLiteral("due.png"));
     }
 
     // The administrator's instrument editor, a value refused beside its field.

@@ -6,6 +6,7 @@
 #include "app/gui/bench/bench_view.h"
 #include "app/gui/bench/session_chart_view.h"
 #include "app/gui/bench/session_setup_dialog.h"
+#include "app/gui/desk/due_page.h"
 #include "app/gui/desk/history_page.h"
 #include "app/gui/desk/review_page.h"
 #include "app/gui/instrument_list_model.h"
@@ -180,11 +181,10 @@ void MainWindow::buildMenus() {
     pagesBar->setObjectName(QStringLiteral("pagesBar"));
     pagesBar->setMovable(false);
     auto* group = new QActionGroup(this);
-    const std::pair<Page, QString> pages[] = {{Page::Register, tr("Register")},
-                                              {Page::Standards, tr("Standards")},
-                                              {Page::Bench, tr("Bench")},
-                                              {Page::Review, tr("Review")},
-                                              {Page::History, tr("History")}};
+    const std::pair<Page, QString> pages[] = {
+        {Page::Register, tr("Register")}, {Page::Standards, tr("Standards")},
+        {Page::Bench, tr("Bench")},       {Page::Review, tr("Review")},
+        {Page::History, tr("History")},   {Page::Due, tr("Due")}};
     for (const auto& [page, name] : pages) {
         QAction* action = pagesBar->addAction(name);
         action->setCheckable(true);
@@ -232,6 +232,9 @@ void MainWindow::updateForPerson() {
     }
     if (history_ != nullptr) {
         history_->reload();
+    }
+    if (due_ != nullptr) {
+        due_->reload();
     }
     if (bench_ != nullptr && bench_->sessionId()) {
         // The bench follows the person: read-only for someone who may not calibrate.
@@ -361,6 +364,10 @@ void MainWindow::showPage(Page page) {
         if (!history_->instrumentId()) {
             history_->reload();
         }
+        break;
+    case Page::Due:
+        widget = due();
+        due_->reload();
         break;
     }
     pages_->setCurrentWidget(widget);

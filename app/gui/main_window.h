@@ -24,6 +24,7 @@ class Workbook;
 namespace mw::gui {
 
 class BenchView;
+class DuePage;
 class HistoryPage;
 class ReviewPage;
 class InstrumentDetailPanel;
@@ -46,7 +47,8 @@ public:
     StandardsPage* standards(); // the reference standards, built on first use
     ReviewPage* review();       // the review desk, built on first use
     HistoryPage* history();     // one instrument over the years, built on first use
-    enum class Page { Register, Standards, Bench, Review, History };
+    DuePage* due();             // what is due, built on first use
+    enum class Page { Register, Standards, Bench, Review, History, Due };
     void showPage(Page page);
     InstrumentListModel* instrumentModel() const;
     InstrumentDetailPanel* detailPanel() const;
@@ -115,6 +117,7 @@ private:
     StandardsPage* standards_ = nullptr;
     ReviewPage* review_ = nullptr;
     HistoryPage* history_ = nullptr;
+    DuePage* due_ = nullptr;
     std::map<Page, QAction*> pageActions_;
     QAction* startAction_ = nullptr;
     QAction* signOutAction_ = nullptr;

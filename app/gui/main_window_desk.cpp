@@ -1,5 +1,6 @@
 // The main window's supervisor pages: the review desk and an instrument's history.
 #include "app/gui/bench/bench_view.h"
+#include "app/gui/desk/due_page.h"
 #include "app/gui/desk/history_page.h"
 #include "app/gui/desk/review_page.h"
 #include "app/gui/main_window.h"
@@ -48,6 +49,21 @@ HistoryPage* MainWindow::history() {
         history_->reload();
     }
     return history_;
+}
+
+DuePage* MainWindow::due() {
+    if (due_ == nullptr) {
+        due_ = new DuePage(*workspace_, pages_);
+        pages_->addWidget(due_);
+        connect(due_, &DuePage::statusMessage, this, &MainWindow::report);
+        connect(due_, &DuePage::historyRequested, this, [this](qint64 instrumentId) {
+            history()->reload();
+            history_->showInstrument(instrumentId);
+            showPage(Page::History);
+        });
+        due_->reload();
+    }
+    return due_;
 }
 
 void MainWindow::showHistoryOfSelected() {
