@@ -8,6 +8,8 @@
 #include "app/gui/bench/reading_grid_model.h"
 #include "app/gui/bench/reading_grid_view.h"
 #include "app/gui/bench/session_setup_dialog.h"
+#include "app/gui/designer/range_designer_view.h"
+#include "app/gui/designer/range_use_box.h"
 #include "app/gui/desk/history_page.h"
 #include "app/gui/desk/review_page.h"
 #include "app/gui/gui_entry.h"
@@ -24,6 +26,7 @@
 #include <QComboBox>
 #include <QDir>
 #include <QLineEdit>
+#include <QPushButton>
 #include <QTabWidget>
 #include <QTableWidget>
 #include <QTemporaryDir>
@@ -204,6 +207,24 @@ int main(int argc, char* argv[]) {
         ranges->item(1, mw::gui::RangeTable::FullScale)->setText(QStringLiteral("50 mV"));
         ranges->resizeColumnsToContents();
         save(editor, folder, QStringLiteral("instrument-editor.png"));
+
+        // The range designer on a bridge rectifier range of the demo, its values taken from the
+        // register, with cold diodes so that the loss at the bottom of the scale shows.
+        mw::gui::RangeDesignerView designer(window.workspace());
+        designer.resize(1280, 780);
+        designer.show();
+        if (designer.useBox()->choose(QStringLiteral("CFM-404"), QStringLiteral("30 V~"))) {
+            auto* take = designer.findChild<QPushButton*>(QStringLiteral("use_take"));
+            take->setFocus();
+            QTest::keyClick(take, Qt::Key_Space);
+        }
+        if (auto* celsius =
+                designer.findChild<QLineEdit*>(QStringLiteral("rectifier_temperature"))) {
+            celsius->setFocus();
+            celsius->selectAll();
+            QTest::keyClicks(celsius, QStringLiteral("5 °C"));
+        }
+        save(designer, folder, QStringLiteral("designer.png"));
     }
     return 0;
 }

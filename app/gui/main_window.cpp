@@ -6,6 +6,7 @@
 #include "app/gui/bench/bench_view.h"
 #include "app/gui/bench/session_chart_view.h"
 #include "app/gui/bench/session_setup_dialog.h"
+#include "app/gui/designer/range_designer_view.h"
 #include "app/gui/desk/due_page.h"
 #include "app/gui/desk/history_page.h"
 #include "app/gui/desk/review_page.h"
@@ -368,6 +369,9 @@ void MainWindow::showPage(Page page) {
     case Page::Due:
         widget = due();
         due_->reload();
+        break;
+    case Page::Designer:
+        widget = designer();
         break;
     }
     pages_->setCurrentWidget(widget);

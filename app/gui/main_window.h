@@ -25,6 +25,7 @@ namespace mw::gui {
 
 class BenchView;
 class DuePage;
+class RangeDesignerView;
 class HistoryPage;
 class ReviewPage;
 class InstrumentDetailPanel;
@@ -43,12 +44,13 @@ public:
     Workspace& workspace() { return *workspace_; }
     storage::Workbook* workbook() const;
     RegisterPage* registerPage() const { return register_; }
-    BenchView* bench();         // the bench page, built on first use
-    StandardsPage* standards(); // the reference standards, built on first use
-    ReviewPage* review();       // the review desk, built on first use
-    HistoryPage* history();     // one instrument over the years, built on first use
-    DuePage* due();             // what is due, built on first use
-    enum class Page { Register, Standards, Bench, Review, History, Due };
+    BenchView* bench();            // the bench page, built on first use
+    StandardsPage* standards();    // the reference standards, built on first use
+    ReviewPage* review();          // the review desk, built on first use
+    HistoryPage* history();        // one instrument over the years, built on first use
+    DuePage* due();                // what is due, built on first use
+    RangeDesignerView* designer(); // the range designer, built on first use
+    enum class Page { Register, Standards, Bench, Review, History, Due, Designer };
     void showPage(Page page);
     InstrumentListModel* instrumentModel() const;
     InstrumentDetailPanel* detailPanel() const;
@@ -118,6 +120,7 @@ private:
     ReviewPage* review_ = nullptr;
     HistoryPage* history_ = nullptr;
     DuePage* due_ = nullptr;
+    RangeDesignerView* designer_ = nullptr;
     std::map<Page, QAction*> pageActions_;
     QAction* startAction_ = nullptr;
     QAction* signOutAction_ = nullptr;

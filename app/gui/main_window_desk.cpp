@@ -1,5 +1,7 @@
-// The main window's supervisor pages: the review desk and an instrument's history.
+// The main window's pages built on first use: the review desk, an instrument's history, what
+// is due, and the range designer.
 #include "app/gui/bench/bench_view.h"
+#include "app/gui/designer/range_designer_view.h"
 #include "app/gui/desk/due_page.h"
 #include "app/gui/desk/history_page.h"
 #include "app/gui/desk/review_page.h"
@@ -64,6 +66,17 @@ DuePage* MainWindow::due() {
         due_->reload();
     }
     return due_;
+}
+
+RangeDesignerView* MainWindow::designer() {
+    if (designer_ == nullptr) {
+        designer_ = new RangeDesignerView(*workspace_, pages_);
+        pages_->addWidget(designer_);
+        // A designed resistor copied into a range: the register shows the change.
+        connect(designer_, &RangeDesignerView::resistorSaved, this,
+                [this] { reloadRegisterQuietly(); });
+    }
+    return designer_;
 }
 
 void MainWindow::showHistoryOfSelected() {

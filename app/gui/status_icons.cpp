@@ -97,6 +97,10 @@ QIcon outcomeIcon(Outcome outcome, const QPalette& palette) {
     return QIcon(pixmap);
 }
 
+bool isDark(const QPalette& palette) {
+    return palette.color(QPalette::Window).lightness() < 128;
+}
+
 QIcon warningIcon(const QPalette& palette) {
     QPixmap pixmap = canvas();
     QPainter p(&pixmap);

@@ -13,6 +13,9 @@ namespace mw::gui {
 // Pass: a filled disc with a tick; conditional pass: an open ring with a tick; conditional
 // fail: a triangle with "!"; fail: a square with a cross.
 QIcon outcomeIcon(Outcome outcome, const QPalette& palette);
+// True for a dark theme (charts then take their dark theme).
+bool isDark(const QPalette& palette);
+
 // A triangle with "!" for anything that needs attention (an entry refused, a TUR below 4:1).
 QIcon warningIcon(const QPalette& palette);
 

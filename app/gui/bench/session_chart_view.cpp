@@ -123,10 +123,6 @@ void setRoundTicks(QValueAxis* axis, double step) {
                                            QStringLiteral("f"));
 }
 
-bool isDark(const QPalette& palette) {
-    return palette.color(QPalette::Window).lightness() < 128;
-}
-
 } // namespace
 
 SessionChartView::SessionChartView(QWidget* parent)
