@@ -185,7 +185,8 @@ void MainWindow::buildMenus() {
     const std::pair<Page, QString> pages[] = {
         {Page::Register, tr("Register")}, {Page::Standards, tr("Standards")},
         {Page::Bench, tr("Bench")},       {Page::Review, tr("Review")},
-        {Page::History, tr("History")},   {Page::Due, tr("Due")}};
+        {Page::History, tr("History")},   {Page::Due, tr("Due")},
+        {Page::Designer, tr("Designer")}};
     for (const auto& [page, name] : pages) {
         QAction* action = pagesBar->addAction(name);
         action->setCheckable(true);
