@@ -9,9 +9,11 @@
 #include <QString>
 #include <QStringList>
 
+#include <initializer_list>
 #include <optional>
 #include <stdexcept>
 #include <string>
+#include <utility>
 
 namespace mw::cli {
 
@@ -42,6 +44,15 @@ std::optional<double> optionalQuantity(const QCommandLineParser& parser, const Q
                                        Unit unit);
 
 // Reads a required option's raw text; UsageError when it is missing.
+// `text` as a message quotes it: control characters written as \xNN (a newline or a CR can
+// neither cut nor garble the one-line message) and cut with a count past `limit` characters,
+// so that a cell of megabytes is not echoed back whole.
+QString excerpt(const QString& text, qsizetype limit = 40);
+
+// Refuses (UsageError) a computed result that is not a finite number, naming it: inputs that
+// far apart overflow a double, and "inf" is no answer to print.
+void requireFinite(std::initializer_list<std::pair<const char*, double>> results);
+
 QString requireText(const QCommandLineParser& parser, const QString& option);
 
 // Reads an option that must be one of `choices` (or `fallback` when absent).
