@@ -89,7 +89,7 @@ int writePdf(const Document& document, const QString& path, bool overwrite) {
         file.close();
         target.commit();
     } catch (const storage::WorkbookError& error) {
-        throw OutputError(error.message());
+        throw OutputError(QStringLiteral("%1 cannot be written: %2").arg(path, error.message()));
     }
     return pages;
 }

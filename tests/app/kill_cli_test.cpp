@@ -123,7 +123,7 @@ TEST_CASE("demo killed at random moments: no half workbook, the next run succeed
     CHECK(completed < kKills); // most runs were cut short
 }
 
-TEST_CASE("backups killed at random moments leave no target; a retry works", "[kill]") {
+TEST_CASE("backups killed at random moments leave no target, and a retry works", "[kill]") {
     QTemporaryDir dir;
     const QString source = writeDemo(dir.filePath(QStringLiteral("lab.mwb")));
     const QString target = dir.filePath(QStringLiteral("copy.mwb"));
