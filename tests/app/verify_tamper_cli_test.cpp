@@ -94,7 +94,7 @@ QStringList filesIn(const QString& folder) {
 
 } // namespace
 
-TEST_CASE("verify finds dropped rules; the workbook opens read-only until repaired",
+TEST_CASE("verify finds dropped rules, and the workbook opens read-only until repaired",
           "[verify][repair]") {
     QTemporaryDir dir;
     const QString path = copyOfDemo(dir);
