@@ -1,6 +1,8 @@
 // Backups: VACUUM INTO copies on demand and on a schedule, and restoring one.
 #include "storage/backup.h"
 
+#include "storage/atomic_file.h"
+#include "storage/read_trace.h"
 #include "storage/sql_support.h"
 #include "storage/sqlite_dialect.h"
 #include "storage/verification.h"
@@ -12,8 +14,9 @@
 #include <QFile>
 #include <QFileInfo>
 #include <QSqlDatabase>
-#include <QTemporaryDir>
 #include <QTimeZone>
+
+#include <unistd.h>
 
 namespace mw::storage {
 namespace {
@@ -35,12 +38,10 @@ QString freeName(const QString& wanted) {
     return candidate;
 }
 
-// Moves `from` (and its -wal / -shm companions, which belong to it) to `to`.
-void moveWithCompanions(const QString& from, const QString& to) {
-    if (!QFile::rename(from, to)) {
-        throw WorkbookError(Kind::Io, QStringLiteral("cannot move %1 aside to %2").arg(from, to));
-    }
-    for (const char* companion : {"-wal", "-shm"}) {
+const char* const kCompanions[] = {"-wal", "-shm"};
+
+void moveCompanions(const QString& from, const QString& to) {
+    for (const char* companion : kCompanions) {
         const QString source = from + QLatin1String(companion);
         if (QFileInfo::exists(source) && !QFile::rename(source, to + QLatin1String(companion))) {
             throw WorkbookError(Kind::Io, QStringLiteral("cannot move %1 aside").arg(source));
@@ -48,12 +49,23 @@ void moveWithCompanions(const QString& from, const QString& to) {
     }
 }
 
+// Keeps the file at `from` as `to` by a second name (a hard link), so that `from` still holds
+// it until the restored file replaces it; its -wal / -shm belong to it and move with it.
+void keepAside(const QString& from, const QString& to) {
+    if (::link(QFile::encodeName(from).constData(), QFile::encodeName(to).constData()) != 0 &&
+        !QFile::copy(from, to)) {
+        throw WorkbookError(Kind::Io, QStringLiteral("cannot keep %1 as %2").arg(from, to));
+    }
+    moveCompanions(from, to);
+}
+
 // A bare SQLite connection outside Workbook: no pragmas, no checks and no migration, for
 // copying an older backup and for testing whether a target file is in use.
 class RawConnection {
 public:
     RawConnection(const QString& path, bool readOnly, int busyTimeoutMs)
-        : name_(QStringLiteral("meterwright-restore-%1").arg(counter_.fetchAndAddRelaxed(1))) {
+        : trace_(path)
+        , name_(QStringLiteral("meterwright-restore-%1").arg(counter_.fetchAndAddRelaxed(1))) {
         QSqlDatabase db = QSqlDatabase::addDatabase(QStringLiteral("QSQLITE"), name_);
         db.setDatabaseName(path);
         QString options = QStringLiteral("QSQLITE_BUSY_TIMEOUT=%1").arg(busyTimeoutMs);
@@ -78,6 +90,7 @@ public:
 
 private:
     static inline QAtomicInteger<quint64> counter_;
+    ReadTrace trace_;
     QString name_;
 };
 
@@ -87,51 +100,13 @@ void copyThroughWal(const QString& backupPath, const QString& copyPath) {
     dialect::vacuumInto(backup.db(), copyPath);
 }
 
-void requireSound(const Workbook& workbook, const QString& backupPath) {
-    const VerificationReport report = verifyWorkbook(workbook);
+// The backup is checked as it is, whatever its version: an older one's records are checked
+// in an upgraded throw-away copy, and the copy restored is upgraded when it is next opened.
+void checkRestorable(const QString& backupPath) {
+    const VerificationReport report = verifyWorkbookFile(backupPath);
     if (!report.sound()) {
         throw WorkbookError(Kind::Corrupt, QStringLiteral("the backup %1 is not sound: %2")
-                                               .arg(backupPath, report.firstMismatch.value_or(
-                                                                    report.integrityMessage)));
-    }
-}
-
-// An older backup cannot be checked read-only (its chain is only computed by the current
-// schema), so a throw-away copy is upgraded in a temporary folder and checked there.
-void checkOlderBackup(const QString& backupPath) {
-    const QTemporaryDir scratch;
-    if (!scratch.isValid()) {
-        throw WorkbookError(Kind::Io, QStringLiteral("cannot check the older backup %1: no "
-                                                     "temporary folder (%2)")
-                                          .arg(backupPath, scratch.errorString()));
-    }
-    const QString copy = scratch.filePath(QStringLiteral("check.mwb"));
-    try {
-        copyThroughWal(backupPath, copy);
-        const Workbook upgraded(copy);
-        requireSound(upgraded, backupPath);
-    } catch (const WorkbookError& error) {
-        QString message = error.message();
-        message.replace(copy, QStringLiteral("its upgraded copy"));
-        throw WorkbookError(error.kind(), message.startsWith(QStringLiteral("the backup"))
-                                              ? message
-                                              : QStringLiteral("the older backup %1 cannot be "
-                                                               "upgraded and checked: %2")
-                                                    .arg(backupPath, message));
-    }
-}
-
-void checkRestorable(const QString& backupPath) {
-    OpenOptions options;
-    options.readOnly = true;
-    try {
-        const Workbook backup(backupPath, options);
-        requireSound(backup, backupPath);
-    } catch (const WorkbookError& error) {
-        if (error.kind() != Kind::NeedsUpgrade) {
-            throw;
-        }
-        checkOlderBackup(backupPath);
+                                               .arg(backupPath, report.problems.first()));
     }
 }
 
@@ -178,7 +153,7 @@ void requireNotInUse(const QString& targetPath) {
 } // namespace
 
 void backupWorkbook(const Workbook& workbook, const QString& targetPath) {
-    if (QFileInfo::exists(targetPath)) {
+    if (QFileInfo::exists(targetPath) || QFileInfo(targetPath).isSymLink()) {
         throw WorkbookError(
             Kind::Io,
             QStringLiteral("%1 already exists; a backup never overwrites a file").arg(targetPath));
@@ -187,7 +162,15 @@ void backupWorkbook(const Workbook& workbook, const QString& targetPath) {
     if (!QDir().mkpath(folder)) {
         throw WorkbookError(Kind::Io, QStringLiteral("cannot create the folder %1").arg(folder));
     }
-    dialect::vacuumInto(workbook.database(), targetPath);
+    AtomicFile file(targetPath);
+    try {
+        dialect::vacuumInto(workbook.database(), file.partialPath());
+    } catch (const WorkbookError& error) {
+        QString message = error.message();
+        message.replace(file.partialPath(), targetPath);
+        throw WorkbookError(error.kind(), message);
+    }
+    file.commit();
 }
 
 QString backupDirectory(const QString& workbookPath, const BackupPolicy& policy) {
@@ -243,30 +226,27 @@ RestoreOutcome restoreWorkbook(const QString& backupPath, const QString& targetP
     }
     requireReplaceableTarget(targetPath);
     checkRestorable(backupPath);
-    const QString staging = freeName(targetPath + QStringLiteral(".restoring"));
+    AtomicFile staging(targetPath, AtomicFile::Existing::Replace);
     try {
-        copyThroughWal(backupPath, staging);
+        copyThroughWal(backupPath, staging.partialPath());
     } catch (const WorkbookError& error) {
-        QFile::remove(staging);
         QString message = error.message();
-        message.replace(staging, QStringLiteral("a new file beside %1").arg(targetPath));
+        message.replace(staging.partialPath(),
+                        QStringLiteral("a new file beside %1").arg(targetPath));
         throw WorkbookError(Kind::Io, message);
     }
     RestoreOutcome outcome;
-    try {
-        requireNotInUse(targetPath);
-        if (QFileInfo::exists(targetPath)) {
-            outcome.replacedKeptAs = freeName(targetPath + QStringLiteral(".before-restore"));
-            moveWithCompanions(targetPath, outcome.replacedKeptAs);
-        }
-    } catch (const WorkbookError&) {
-        QFile::remove(staging);
-        throw;
+    requireNotInUse(targetPath);
+    if (QFileInfo::exists(targetPath)) {
+        outcome.replacedKeptAs = freeName(targetPath + QStringLiteral(".before-restore"));
+        keepAside(targetPath, outcome.replacedKeptAs);
     }
-    if (!QFile::rename(staging, targetPath)) {
-        QFile::remove(staging);
+    // One rename replaces the workbook: whenever the run stops, its name holds a whole file.
+    try {
+        staging.commit();
+    } catch (const WorkbookError&) {
         if (!outcome.replacedKeptAs.isEmpty()) {
-            moveWithCompanions(outcome.replacedKeptAs, targetPath);
+            moveCompanions(outcome.replacedKeptAs, targetPath);
         }
         throw WorkbookError(Kind::Io, QStringLiteral("cannot put the restored workbook at %1; "
                                                      "the file there was left as it was")

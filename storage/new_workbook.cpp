@@ -1,29 +1,19 @@
 // Creating a workbook: built under a temporary name in the target's folder, then renamed.
 #include "storage/new_workbook.h"
 
+#include "storage/atomic_file.h"
 #include "storage/lab_repository.h"
 #include "storage/user_repository.h"
 #include "storage/workbook.h"
 #include "storage/workbook_error.h"
 
 #include <QDir>
-#include <QFile>
 #include <QFileInfo>
-#include <QUuid>
-
-#include <unistd.h>
 
 namespace mw::storage {
 namespace {
 
 using Kind = WorkbookError::Kind;
-
-void removeWithCompanions(const QString& path) {
-    for (const QString& suffix :
-         {QString(), QStringLiteral("-wal"), QStringLiteral("-shm"), QStringLiteral("-journal")}) {
-        QFile::remove(path + suffix);
-    }
-}
 
 } // namespace
 
@@ -60,37 +50,23 @@ void createWorkbook(const NewWorkbook& request) {
     if (const QString problem = passwordProblem(request.password); !problem.isEmpty()) {
         throw WorkbookError(Kind::BadInput, problem);
     }
-    // A name nobody else picks, in the same folder so that the rename cannot cross file systems.
-    const QString partial = target.absoluteDir().filePath(
-        QStringLiteral(".%1.creating-%2")
-            .arg(target.fileName(), QUuid::createUuid().toString(QUuid::Id128).left(8)));
+    AtomicFile file(request.path);
+    {
+        OpenOptions options;
+        options.createIfMissing = true;
+        Workbook workbook(file.partialPath(), options);
+        LabRepository(workbook).save(request.lab);
+        User administrator = request.administrator;
+        administrator.role = Role::Administrator;
+        administrator.active = true;
+        UserRepository(workbook).add(administrator, request.password);
+    } // closed: the write-ahead log is folded into the file
     try {
-        {
-            OpenOptions options;
-            options.createIfMissing = true;
-            Workbook workbook(partial, options);
-            LabRepository(workbook).save(request.lab);
-            User administrator = request.administrator;
-            administrator.role = Role::Administrator;
-            administrator.active = true;
-            UserRepository(workbook).add(administrator, request.password);
-        } // closed: the write-ahead log is folded into the file
-        QFile file(partial);
-        if (!file.open(QIODevice::ReadWrite) || !file.flush() || ::fsync(file.handle()) != 0) {
-            throw WorkbookError(Kind::CannotOpen,
-                                QStringLiteral("%1 could not be written to disk").arg(partial));
-        }
-        file.close();
-        // QFile::rename never replaces an existing file (on Linux it asks the kernel not to).
-        if (!QFile::rename(partial, target.absoluteFilePath())) {
-            throw WorkbookError(Kind::BadInput,
-                                QStringLiteral("%1 could not be created (it may have appeared "
-                                               "meanwhile)")
-                                    .arg(request.path));
-        }
-    } catch (...) {
-        removeWithCompanions(partial);
-        throw;
+        file.commit();
+    } catch (const WorkbookError& error) {
+        throw WorkbookError(
+            Kind::BadInput,
+            QStringLiteral("%1 could not be created: %2").arg(request.path, error.message()));
     }
 }
 

@@ -1,4 +1,4 @@
-// Verification of a workbook: integrity, the chain of approved records, and every verdict.
+// Verification of a workbook's records: the chain of approved records and every verdict.
 #include "storage/verification.h"
 
 #include "core/evaluation/session_evaluation.h"
@@ -7,7 +7,6 @@
 #include "storage/session_loader.h"
 #include "storage/sql_support.h"
 #include "storage/sqlite_dialect.h"
-#include "storage/workbook.h"
 
 #include <map>
 #include <set>
@@ -31,10 +30,7 @@ QString describe(int position, const CalibrationSession& s) {
 }
 
 void note(VerificationReport& report, std::int64_t sessionId, const QString& problem) {
-    if (!report.firstMismatch) {
-        report.firstMismatch = problem;
-        report.firstMismatchSessionId = sessionId;
-    }
+    report.note(problem, sessionId);
 }
 
 struct ChainRow {
@@ -198,11 +194,8 @@ void checkVerdict(const CalibrationSession& s, const RecordContext& context,
 
 } // namespace
 
-VerificationReport verifyWorkbook(const Workbook& workbook) {
-    const QSqlDatabase db = workbook.database();
-    VerificationReport report;
-    report.integrityMessage = dialect::integrityCheck(db);
-    report.integrityOk = report.integrityMessage == QLatin1String("ok");
+void detail::checkRecords(const QSqlDatabase& db, VerificationReport& report) {
+    const qsizetype recordsFrom = report.problems.size();
     const std::vector<ChainRow> rows = chainRows(db);
     report.chainLength = int(rows.size());
     report.chainHeadDigest = rows.empty() ? QString() : rows.back().digest;
@@ -213,13 +206,11 @@ VerificationReport verifyWorkbook(const Workbook& workbook) {
     } catch (const WorkbookError& error) {
         note(report, 0,
              QStringLiteral("the instruments or users cannot be read: %1").arg(error.message()));
-        return report;
+        return;
     }
     const Sessions sessions = readSessions(db, report);
     if (auto problem = checkChain(sessions, *contexts, rows, report)) {
-        report.firstMismatch.reset(); // the chain comes first: it says the most
-        report.firstMismatchSessionId = problem->first;
-        report.firstMismatch = problem->second;
+        report.note(problem->second, problem->first, recordsFrom); // the chain says the most
     }
     std::set<std::int64_t> chained;
     for (const ChainRow& row : rows) {
@@ -237,7 +228,6 @@ VerificationReport verifyWorkbook(const Workbook& workbook) {
         }
         checkVerdict(s, contexts->of(s), report);
     }
-    return report;
 }
 
 } // namespace mw::storage

@@ -2,7 +2,10 @@
 // set the connection up, back up and migrate an older schema.
 #include "storage/workbook.h"
 
+#include "storage/atomic_file.h"
+#include "storage/read_trace.h"
 #include "storage/schema.h"
+#include "storage/schema_check.h"
 #include "storage/sql_support.h"
 #include "storage/sqlite_dialect.h"
 #include "storage/workbook_error.h"
@@ -113,6 +116,7 @@ QString freeName(const QString& wanted) {
 
 Workbook::Workbook(const QString& path, const OpenOptions& options)
     : path_(QFileInfo(path).absoluteFilePath())
+    , trace_(std::make_unique<ReadTrace>(path_))
     , connectionName_(nextConnectionName()) {
     checkHeaderBeforeOpening(options);
     try {
@@ -192,7 +196,8 @@ void Workbook::inspectAndMigrate(const OpenOptions& options) {
                                     .arg(found.version)
                                     .arg(schema::kCurrentVersion));
         }
-        if (isReadOnly() && found.version < schema::kCurrentVersion) {
+        if (isReadOnly() && found.version < schema::kCurrentVersion &&
+            !(options.readOnly && options.acceptOlderSchema && found.version > 0)) {
             throw WorkbookError(Kind::NeedsUpgrade,
                                 QStringLiteral("%1 has workbook version %2 and must be upgraded "
                                                "to %3, but %4")
@@ -214,11 +219,30 @@ void Workbook::inspectAndMigrate(const OpenOptions& options) {
     }
     const QSqlDatabase db = database();
     if (existing && found.version > 0 && found.version < schema::kCurrentVersion) {
-        upgradeBackupPath_ =
-            freeName(path_ + QStringLiteral(".before-v%1.bak").arg(schema::kCurrentVersion));
-        dialect::vacuumInto(db, upgradeBackupPath_);
+        AtomicFile copy(
+            freeName(path_ + QStringLiteral(".before-v%1.bak").arg(schema::kCurrentVersion)));
+        dialect::vacuumInto(db, copy.partialPath());
+        copy.commit();
+        upgradeBackupPath_ = copy.targetPath();
     }
     schemaVersion_ = schema::migrate(db);
+    if (!options.forRepair) {
+        refuseWritesWithoutRules();
+    }
+}
+
+// Without its triggers a workbook accepts any edit unnoticed (a sealed record changed, an
+// audit row removed), so it is only read until an administrator reinstalls them.
+void Workbook::refuseWritesWithoutRules() {
+    const QStringList missing = schema::missingRules(database(), schemaVersion_);
+    if (!missing.isEmpty()) {
+        readOnlyReason_ =
+            QStringLiteral("%1 of its rules are missing or changed (first: %2), so edits would "
+                           "go unchecked; an administrator can reinstall them with "
+                           "\"meterwright repair\"")
+                .arg(missing.size())
+                .arg(missing.first());
+    }
 }
 
 void Workbook::openConnection(const OpenOptions& options) {

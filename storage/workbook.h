@@ -7,9 +7,12 @@
 
 #include <chrono>
 #include <cstdint>
+#include <memory>
 #include <optional>
 
 namespace mw::storage {
+
+class ReadTrace;
 
 struct OpenOptions {
     bool readOnly = false;        // open read-only even when the file could be written
@@ -20,6 +23,12 @@ struct OpenOptions {
     // How long a write waits for another process's write to finish before failing as Locked.
     std::chrono::milliseconds busyTimeout{10000};
     bool quickCheck = true; // run PRAGMA quick_check while opening
+    // With readOnly, open a workbook of an earlier schema version as it is instead of refusing
+    // it (NeedsUpgrade): for commands that only copy or check it (backup, verify).
+    bool acceptOlderSchema = false;
+    // Open for writing even when the rules (triggers) are missing or changed, so that
+    // repairRules() can reinstall them; otherwise such a workbook opens read-only, saying why.
+    bool forRepair = false;
 };
 
 class Workbook {
@@ -28,7 +37,8 @@ public:
     // CannotOpen, NotAWorkbook (also for an existing empty file, see initializeEmptyFile), Corrupt,
     // NewerSchema, NeedsUpgrade or Locked. A file refused for any of these reasons is left exactly
     // as it was. An older schema is upgraded in place after a copy of the file is written beside it
-    // (upgradeBackupPath()).
+    // (upgradeBackupPath()). A workbook whose rules are missing or changed opens read-only with
+    // the reason (see OpenOptions::forRepair).
     explicit Workbook(const QString& path, const OpenOptions& options = {});
     ~Workbook();
     Workbook(const Workbook&) = delete;
@@ -63,8 +73,10 @@ private:
     void openConnection(const OpenOptions& options);
     void checkHeaderBeforeOpening(const OpenOptions& options);
     void inspectAndMigrate(const OpenOptions& options);
+    void refuseWritesWithoutRules();
 
     QString path_;
+    std::unique_ptr<ReadTrace> trace_; // before the connection: it outlives it
     QString connectionName_;
     QString readOnlyReason_;
     QString upgradeBackupPath_;

@@ -58,7 +58,8 @@ int runBackup(const QStringList& arguments) {
     QString written;
     try {
         storage::OpenOptions options;
-        options.readOnly = true; // a backup only reads the workbook
+        options.readOnly = true; // a backup only reads the workbook, of any version
+        options.acceptOlderSchema = true;
         const storage::Workbook workbook(positional.at(0), options);
         if (automatic) {
             const auto file = storage::backupIfDue(workbook, storage::BackupPolicy{},

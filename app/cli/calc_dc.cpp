@@ -120,6 +120,12 @@ int runShunt(const QStringList& arguments) {
     const CoilCircuit circuit{bare.ohms_coil, TempcoResistor{ohms_swamp, 0.0},
                               TempcoResistor{ohms_shunt, 0.0}};
     const double drift = spanDriftPer10K(circuit);
+    requireFinite({{"shunt", ohms_shunt},
+                   {"shunt current", amps_shunt},
+                   {"meter resistance", ohms_meter},
+                   {"burden", kOverrangeFactor * burden_V},
+                   {"dissipation at 120 %", heat.watts_overrange},
+                   {"span drift", drift}});
     const QStringList cautions = shuntCautions(heat, circuit, classIndex);
     if (parser.isSet(QStringLiteral("json"))) {
         printJson({{QStringLiteral("shunt_ohm"), jsonNumber(ohms_shunt)},
@@ -177,6 +183,12 @@ int runAyrton(const QStringList& arguments) {
     }
     const Movement movement = movementFrom(parser);
     const AyrtonShunt shunt = ayrtonShunt(movement, currentList(parser, QStringLiteral("ranges")));
+    requireFinite({{"whole string", shunt.total_ohm}});
+    for (std::size_t k = 0; k < shunt.amps_ranges.size(); ++k) {
+        requireFinite({{"tap resistance", shunt.taps_ohm[k]},
+                       {"section resistance", shunt.sections_ohm[k]},
+                       {"burden", shunt.burden_V[k]}});
+    }
     if (parser.isSet(QStringLiteral("json"))) {
         QJsonArray ranges;
         QJsonArray taps;

@@ -37,9 +37,8 @@ double sampleVolts(const QString& where, const QString& cell, bool decimalComma)
         options.decimalComma = decimalComma;
         return parseValue(cell.toStdString(), Unit::Volt, options);
     } catch (const QuantityError& error) {
-        throw UsageError(
-            QStringLiteral("%1 \"%2\": %3")
-                .arg(where, escapedCell(cell), escapedCell(QString::fromStdString(error.what()))));
+        throw UsageError(QStringLiteral("%1 \"%2\": %3")
+                             .arg(where, escapedCell(cell), QString::fromStdString(error.what())));
     }
 }
 

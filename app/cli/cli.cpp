@@ -63,9 +63,12 @@ QString oneLine(QString text) {
     return text.simplified();
 }
 
+// Every error is one line of bounded length, whatever it quotes: control characters from the
+// input are escaped, and a message quoting a huge value is cut.
 void printError(const QString& where, const QString& message) {
+    constexpr qsizetype kLongestMessage = 1000;
     QTextStream err(stderr);
-    err << "meterwright " << where << ": " << message << '\n';
+    err << "meterwright " << where << ": " << excerpt(message, kLongestMessage) << '\n';
 }
 
 int runFrom(const std::vector<Command>& commands, const QString& family,

@@ -5,6 +5,7 @@
 #include <QJsonDocument>
 #include <QTextStream>
 
+#include <algorithm>
 #include <cmath>
 #include <cstdio>
 
@@ -60,7 +61,7 @@ std::optional<double> optionalQuantity(const QCommandLineParser& parser, const Q
         return parseValue(text.toStdString(), unit, options);
     } catch (const QuantityError& error) {
         throw UsageError(QStringLiteral("option --%1 \"%2\": %3")
-                             .arg(option, text, QString::fromStdString(error.what())));
+                             .arg(option, excerpt(text), QString::fromStdString(error.what())));
     }
 }
 
@@ -70,6 +71,24 @@ double requireQuantity(const QCommandLineParser& parser, const QString& option, 
         throw UsageError(QStringLiteral("option --%1 is required").arg(option));
     }
     return *value;
+}
+
+QString excerpt(const QString& text, qsizetype limit) {
+    QString escaped;
+    escaped.reserve(std::min(text.size(), limit) + 4);
+    for (const QChar c : text.left(limit)) {
+        const char16_t code = c.unicode();
+        if (code < 0x20 || code == 0x7F || (code >= 0x80 && code < 0xA0)) {
+            escaped +=
+                QStringLiteral("\\x%1").arg(static_cast<uint>(code), 2, 16, QLatin1Char('0'));
+        } else {
+            escaped += c;
+        }
+    }
+    if (text.size() > limit) {
+        escaped += QStringLiteral("\u2026 (%1 characters)").arg(text.size());
+    }
+    return escaped;
 }
 
 QString requireText(const QCommandLineParser& parser, const QString& option) {
@@ -106,10 +125,21 @@ QString chooseOne(const QCommandLineParser& parser, const QString& option,
     }
     const QString value = parser.value(option).trimmed().toLower();
     if (!choices.contains(value)) {
-        throw UsageError(QStringLiteral("option --%1 \"%2\": expected one of %3")
-                             .arg(option, parser.value(option), choices.join(QStringLiteral("|"))));
+        throw UsageError(
+            QStringLiteral("option --%1 \"%2\": expected one of %3")
+                .arg(option, excerpt(parser.value(option)), choices.join(QStringLiteral("|"))));
     }
     return value;
+}
+
+void requireFinite(std::initializer_list<std::pair<const char*, double>> results) {
+    for (const auto& [name, value] : results) {
+        if (!std::isfinite(value)) {
+            throw UsageError(QStringLiteral("the %1 comes out beyond the numbers this program can "
+                                            "hold (about 1e300); check the values given")
+                                 .arg(QLatin1String(name)));
+        }
+    }
 }
 
 QJsonValue jsonNumber(double value) {

@@ -10,10 +10,12 @@
 #include <QStringList>
 
 #include <chrono>
+#include <initializer_list>
 #include <optional>
 #include <stdexcept>
 #include <string>
 #include <string_view>
+#include <utility>
 
 namespace mw::cli {
 
@@ -44,6 +46,15 @@ std::optional<double> optionalQuantity(const QCommandLineParser& parser, const Q
                                        Unit unit);
 
 // Reads a required option's raw text; UsageError when it is missing.
+// `text` as a message quotes it: control characters written as \xNN (a newline or a CR can
+// neither cut nor garble the one-line message) and cut with a count past `limit` characters,
+// so that a cell of megabytes is not echoed back whole.
+QString excerpt(const QString& text, qsizetype limit = 40);
+
+// Refuses (UsageError) a computed result that is not a finite number, naming it: inputs that
+// far apart overflow a double, and "inf" is no answer to print.
+void requireFinite(std::initializer_list<std::pair<const char*, double>> results);
+
 QString requireText(const QCommandLineParser& parser, const QString& option);
 
 // Reads an option given as a day, YYYY-MM-DD; nullopt when absent. The error names the option.

@@ -4,6 +4,9 @@
 #include "app/cli/cli_support.h"
 
 #include <QFile>
+#include <QFileInfo>
+
+#include <algorithm>
 
 namespace mw::cli {
 namespace {
@@ -52,28 +55,34 @@ void CsvTable::requireKnownColumns(const QStringList& allowed) const {
 }
 
 QString escapedCell(const QString& text) {
-    QString escaped;
-    escaped.reserve(text.size());
-    for (const QChar c : text) {
-        const char16_t code = c.unicode();
-        if (code < 0x20 || code == 0x7F || (code >= 0x80 && code < 0xA0)) {
-            escaped +=
-                QStringLiteral("\\x%1").arg(static_cast<uint>(code), 2, 16, QLatin1Char('0'));
-        } else {
-            escaped += c;
-        }
-    }
-    return escaped;
+    return excerpt(text);
 }
 
 std::vector<CsvLine> readDataLines(const QString& path, const QString& option) {
+    const QString shown = escapedCell(path);
+    // A FIFO would block the command and a device (/dev/zero) never ends: regular files only,
+    // asked before opening, since opening a FIFO already blocks.
+    const QFileInfo info(path);
+    if (info.exists() && !info.isFile()) {
+        throw UsageError(QStringLiteral("option --%1 \"%2\": not a regular file (a pipe, device "
+                                        "or folder); give a file")
+                             .arg(option, shown));
+    }
     QFile file(path);
     // Binary: text mode would drop a CR inside a cell ("1\r5" read as 15) without a word.
     if (!file.open(QIODevice::ReadOnly)) {
         throw UsageError(
-            QStringLiteral("option --%1 \"%2\": %3").arg(option, path, file.errorString()));
+            QStringLiteral("option --%1 \"%2\": %3").arg(option, shown, file.errorString()));
     }
-    const QString content = QString::fromUtf8(file.readAll());
+    // Read at most one byte past the limit, so memory stays bounded even if the file grows.
+    const QByteArray bytes = file.read(kMaxDataFileBytes + 1);
+    if (bytes.size() > kMaxDataFileBytes) {
+        throw UsageError(QStringLiteral("option --%1 \"%2\": the file is larger than %3 MiB, the "
+                                        "limit for a file of readings or samples")
+                             .arg(option, shown)
+                             .arg(kMaxDataFileBytes / (1024 * 1024)));
+    }
+    const QString content = QString::fromUtf8(bytes);
     if (content.contains(QLatin1Char('\r')) && !content.contains(QLatin1Char('\n'))) {
         throw UsageError(QStringLiteral("%1: lines end with CR only (old Mac line ends); save the "
                                         "file with LF or CRLF line ends")

@@ -38,8 +38,12 @@ struct CsvTable {
 };
 
 // `text` with every control character written as \xNN, so that a NUL or a CR echoed from a cell
-// can neither cut nor garble a one-line message.
+// can neither cut nor garble a one-line message; past 40 characters it is cut with a count.
 QString escapedCell(const QString& text);
+
+// The largest file of readings or samples a command reads (4 MiB: some 100,000 lines, far
+// beyond a calibration's readings or one period of samples).
+inline constexpr qint64 kMaxDataFileBytes = qint64(4) * 1024 * 1024;
 
 // The lines of `path` that hold data: a UTF-8 byte-order mark, blank lines and lines starting
 // with '#' are skipped. Lines end with LF or CRLF; any other CR (inside a line, or a file with

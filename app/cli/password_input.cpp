@@ -105,4 +105,16 @@ QString readNewPassword(const QString& whom) {
     return first;
 }
 
+QString readPassword(const QString& whom) {
+    if (isatty(STDIN_FILENO) != 0) {
+        return prompted(QStringLiteral("Password of %1: ").arg(whom));
+    }
+    const auto line = readLine();
+    if (!line) {
+        throw UsageError(QStringLiteral("no password on standard input (type it at a terminal, "
+                                        "or pipe it in on one line)"));
+    }
+    return *line;
+}
+
 } // namespace mw::cli

@@ -11,4 +11,8 @@ namespace mw::cli {
 // it). Throws UsageError when nothing was given, the two differ, or the password is too short.
 QString readNewPassword(const QString& whom);
 
+// Reads the password of `whom` to sign in with: typed once without echo at a terminal, or the
+// first line of standard input. Throws UsageError when nothing was given.
+QString readPassword(const QString& whom);
+
 } // namespace mw::cli

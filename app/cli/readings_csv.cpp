@@ -44,9 +44,8 @@ double cellValue(const QString& where, const QString& cell, Unit unit,
     try {
         return parseValue(cell.toStdString(), unit, options);
     } catch (const QuantityError& error) {
-        throw UsageError(
-            QStringLiteral("%1 \"%2\": %3")
-                .arg(where, escapedCell(cell), escapedCell(QString::fromStdString(error.what()))));
+        throw UsageError(QStringLiteral("%1 \"%2\": %3")
+                             .arg(where, escapedCell(cell), QString::fromStdString(error.what())));
     }
 }
 

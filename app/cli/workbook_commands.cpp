@@ -6,6 +6,7 @@
 #include "app/cli/demo_command.h"
 #include "app/cli/desk_commands.h"
 #include "app/cli/record_commands.h"
+#include "app/cli/repair_command.h"
 #include "app/cli/session_commands.h"
 #include "app/cli/workbook_access.h"
 #include "storage/record_digest.h"
@@ -13,6 +14,7 @@
 #include "storage/workbook.h"
 #include "storage/workbook_error.h"
 
+#include <QJsonArray>
 #include <QJsonObject>
 
 namespace mw::cli {
@@ -20,11 +22,18 @@ namespace {
 
 constexpr int kCheckFailed = 1;
 
+// SQLite's texts may hold line breaks; every line of the report stays one line.
+QString oneLine(QString text) {
+    text.replace(QLatin1Char('\n'), QStringLiteral("; "));
+    return text.simplified();
+}
+
 void printReport(const storage::VerificationReport& report, const QString& path, bool json) {
     if (json) {
         QJsonObject object{
             {QStringLiteral("workbook"), path},
             {QStringLiteral("sound"), report.sound()},
+            {QStringLiteral("schema_version"), report.schemaVersion},
             {QStringLiteral("integrity_check"), report.integrityMessage},
             {QStringLiteral("records_checked"), report.recordsChecked},
             {QStringLiteral("sessions_checked"), report.sessionsChecked},
@@ -39,10 +48,11 @@ void printReport(const storage::VerificationReport& report, const QString& path,
             object.insert(QStringLiteral("first_mismatch_session"),
                           qint64(report.firstMismatchSessionId.value_or(0)));
         }
+        object.insert(QStringLiteral("problems"), QJsonArray::fromStringList(report.problems));
         printJson(object);
         return;
     }
-    printLine(QStringLiteral("workbook: %1").arg(path));
+    printLine(QStringLiteral("workbook: %1 (version %2)").arg(path).arg(report.schemaVersion));
     printLine(QStringLiteral("integrity check: %1").arg(report.integrityMessage));
     printLine(QStringLiteral("calibration sessions looked at: %1").arg(report.sessionsChecked));
     printLine(QStringLiteral("approved records whose digest was recomputed and matched: %1")
@@ -60,7 +70,15 @@ void printReport(const storage::VerificationReport& report, const QString& path,
                   .arg(report.chainLength == 0 ? QStringLiteral("(none)")
                                                : storage::shortDigest(report.chainHeadDigest)));
     if (report.firstMismatch) {
-        printLine(QStringLiteral("FIRST MISMATCH: %1").arg(*report.firstMismatch));
+        printLine(QStringLiteral("FIRST MISMATCH: %1").arg(oneLine(*report.firstMismatch)));
+    }
+    // Every further problem, up to a screenful; the JSON output lists them all.
+    constexpr int kShown = 20;
+    for (qsizetype i = 1; i < report.problems.size() && i <= kShown; ++i) {
+        printLine(QStringLiteral("also: %1").arg(oneLine(report.problems[i])));
+    }
+    if (report.problems.size() > kShown + 1) {
+        printLine(QStringLiteral("and %1 more problems").arg(report.problems.size() - kShown - 1));
     }
     printLine(report.sound() ? QStringLiteral("result: sound")
                              : QStringLiteral("result: NOT sound"));
@@ -69,10 +87,12 @@ void printReport(const storage::VerificationReport& report, const QString& path,
 int runVerify(const QStringList& arguments) {
     QCommandLineParser parser;
     parser.setApplicationDescription(QStringLiteral(
-        "Checks a workbook: SQLite integrity, the digest chain of approved records, and every "
-        "stored outcome against the session evaluator on the inputs the session was sealed "
-        "with. Exit 0 when sound, 1 naming the first record that no longer matches, 2 when the "
-        "file cannot be opened."));
+        "Checks a workbook as it is, of any version, without writing to it: SQLite integrity and "
+        "foreign keys, every table, index and trigger against the definitions of the workbook's "
+        "version, every stored value against its column's type and vocabulary, the digest chain "
+        "of approved records, and every stored outcome against the session evaluator on the "
+        "inputs the session was sealed with. Exit 0 when sound, 1 naming what failed, 2 when "
+        "the file cannot be opened as a workbook."));
     parser.addPositionalArgument(QStringLiteral("WORKBOOK"), QStringLiteral("the workbook file"));
     const QString commandLine = QStringLiteral("verify");
     parseOptions(parser, commandLine, arguments);
@@ -80,8 +100,16 @@ int runVerify(const QStringList& arguments) {
         return 0;
     }
     const QString path = onlyWorkbookArgument(parser.positionalArguments());
-    const auto workbook = openForReading(path); // verification never writes
-    const storage::VerificationReport report = storage::verifyWorkbook(*workbook);
+    storage::VerificationReport report;
+    try {
+        report = storage::verifyWorkbookFile(path); // never writes, of any version
+    } catch (const storage::WorkbookError& error) {
+        using Kind = storage::WorkbookError::Kind;
+        if (error.kind() == Kind::Internal || error.kind() == Kind::Sql) {
+            throw; // not the user's doing: the dispatcher reports an internal error
+        }
+        throw UsageError(QStringLiteral("cannot open the workbook: ") + oneLine(error.message()));
+    }
     printReport(report, path, parser.isSet(QStringLiteral("json")));
     return report.sound() ? 0 : kCheckFailed;
 }
@@ -143,6 +171,7 @@ std::vector<Command> workbookCommands() {
         reviewCommand(),
         backupCommand(),
         restoreCommand(),
+        repairCommand(),
     };
     for (auto&& family : {peopleCommands(), recordCommands()}) {
         for (const Command& command : family) {

@@ -2,13 +2,15 @@
 #include "app/record/document_output.h"
 
 #include "app/record/document_layout.h"
+#include "storage/atomic_file.h"
+#include "storage/workbook_error.h"
 
+#include <QFile>
 #include <QFileInfo>
 #include <QPageSize>
 #include <QPagedPaintDevice>
 #include <QPainter>
 #include <QPdfWriter>
-#include <QSaveFile>
 
 namespace mw::record {
 namespace {
@@ -59,22 +61,35 @@ int writePdf(const Document& document, const QString& path, bool overwrite) {
                                          "to replace it)")
                               .arg(path));
     }
-    QSaveFile file(path);
-    if (!file.open(QIODevice::WriteOnly)) {
-        throw OutputError(QStringLiteral("%1 cannot be written: %2").arg(path, file.errorString()));
-    }
     int pages = 0;
-    {
-        QPdfWriter writer(&file);
-        writer.setPageSize(QPageSize(QPageSize::A4));
-        writer.setPageMargins(QMarginsF(0, 0, 0, 0));
-        writer.setResolution(kPdfResolution);
-        writer.setTitle(QString::fromStdString(document.title + " \u2013 " + document.identifier));
-        writer.setCreator(QStringLiteral("Meterwright"));
-        pages = paintDocument(document, writer);
-    }
-    if (!file.commit()) {
-        throw OutputError(QStringLiteral("%1 cannot be written: %2").arg(path, file.errorString()));
+    try {
+        // Written under a partial name and renamed when complete, like every file the program
+        // creates: a reader never finds half a record under the chosen name.
+        storage::AtomicFile target(path, overwrite ? storage::AtomicFile::Existing::Replace
+                                                   : storage::AtomicFile::Existing::Refuse);
+        QFile file(target.partialPath());
+        if (!file.open(QIODevice::WriteOnly | QIODevice::NewOnly)) {
+            throw OutputError(
+                QStringLiteral("%1 cannot be written: %2").arg(path, file.errorString()));
+        }
+        {
+            QPdfWriter writer(&file);
+            writer.setPageSize(QPageSize(QPageSize::A4));
+            writer.setPageMargins(QMarginsF(0, 0, 0, 0));
+            writer.setResolution(kPdfResolution);
+            writer.setTitle(
+                QString::fromStdString(document.title + " \u2013 " + document.identifier));
+            writer.setCreator(QStringLiteral("Meterwright"));
+            pages = paintDocument(document, writer);
+        }
+        if (!file.flush() || file.error() != QFileDevice::NoError) {
+            throw OutputError(
+                QStringLiteral("%1 cannot be written: %2").arg(path, file.errorString()));
+        }
+        file.close();
+        target.commit();
+    } catch (const storage::WorkbookError& error) {
+        throw OutputError(QStringLiteral("%1 cannot be written: %2").arg(path, error.message()));
     }
     return pages;
 }

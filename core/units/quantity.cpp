@@ -4,6 +4,7 @@
 
 #include "core/units/unit_spelling.h"
 
+#include <algorithm>
 #include <charconv>
 #include <cmath>
 #include <optional>
@@ -225,8 +226,12 @@ void Parser::readExponent() {
     if (digits.empty()) {
         fail(pos_, show(pos_), "an exponent needs digits, as in 1e3 or 2.5e-6");
     }
-    // Longer exponents overflow any double; the size check keeps the long from overflowing.
-    const long magnitude = digits.size() > 6 ? 9999999 : std::stol(digits);
+    // The exponent's value counts, not its digits ("1e0000001" is 10). A value of seven digits
+    // or more overflows or underflows any double either way; capping it keeps the long whole.
+    const std::size_t first = std::min(digits.find_first_not_of('0'), digits.size());
+    const std::string significant = digits.substr(first);
+    const long magnitude =
+        significant.size() > 6 ? 9999999 : (significant.empty() ? 0 : std::stol(significant));
     exponent_ += negative ? -magnitude : magnitude;
     pos_ = i;
 }

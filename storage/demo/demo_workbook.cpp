@@ -5,6 +5,7 @@
 
 #include "core/evaluation/session_evaluation.h"
 
+#include "storage/atomic_file.h"
 #include "storage/demo/demo_catalogue.h"
 #include "storage/demo/demo_history.h"
 #include "storage/demo/demo_schedule.h"
@@ -17,7 +18,6 @@
 #include "storage/workbook.h"
 #include "storage/workbook_error.h"
 
-#include <QFile>
 #include <QFileInfo>
 
 #include <algorithm>
@@ -321,12 +321,6 @@ DemoSummary fill(const QString& path, std::chrono::sys_days today, std::uint64_t
     return summarise(workbook, instruments, standards.register_rows, planned, today);
 }
 
-void removeWithCompanions(const QString& path) {
-    for (const char* suffix : {"", "-wal", "-shm", "-journal"}) {
-        QFile::remove(path + QLatin1String(suffix));
-    }
-}
-
 } // namespace
 
 DemoSummary writeDemoWorkbook(const QString& path, std::chrono::sys_days today,
@@ -336,13 +330,16 @@ DemoSummary writeDemoWorkbook(const QString& path, std::chrono::sys_days today,
             storage::WorkbookError::Kind::Io,
             QStringLiteral("%1 already exists; the demo is only written to a new file").arg(path));
     }
+    // Written under a partial name and renamed when complete: a killed run leaves no
+    // half-made workbook under the chosen name, and the next run clears its leftover.
+    storage::AtomicFile file(path);
     try {
-        return fill(path, today, seed);
+        const DemoSummary summary = fill(file.partialPath(), today, seed);
+        file.commit();
+        return summary;
     } catch (const storage::WorkbookError&) {
-        removeWithCompanions(path); // the workbook was closed as fill() unwound
         throw;
     } catch (const std::exception& error) {
-        removeWithCompanions(path);
         throw storage::WorkbookError(storage::WorkbookError::Kind::Internal,
                                      QStringLiteral("writing the demo workbook failed: %1")
                                          .arg(QString::fromUtf8(error.what())));

@@ -229,3 +229,10 @@ TEST_CASE("the decimal comma is offered where values are read") {
     const QJsonObject json = runJson(args({"eseries", "--value", "4,7k", "--decimal-comma"}));
     CHECK(json.value(QStringLiteral("wanted_ohm")).toDouble() == relative(4700.0, 1e-12));
 }
+
+TEST_CASE("calc shunt refuses a result beyond the numbers it can hold") {
+    // Invented inputs far outside any meter: the shunt's dissipation overflows a double.
+    mwtest::calc::requireUsageError(
+        mwtest::args({"shunt", "--ifs", "1mA", "--rm", "100", "--range", "1e308"}),
+        "beyond the numbers");
+}

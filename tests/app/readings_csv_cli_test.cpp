@@ -15,6 +15,8 @@
 
 #include <initializer_list>
 
+#include <sys/stat.h>
+
 using mwtest::absolute;
 using mwtest::args;
 using mwtest::relative;
@@ -234,4 +236,29 @@ TEST_CASE("calc evaluate refuses a repeat number given twice, naming both lines"
     requireUsageError(evaluate(csv, {}),
                       "twice.csv line 5 (reading 3) repeats number 1 of reading 1 at the same "
                       "point (5.000 V, up); reading 1 is on line 2");
+}
+
+TEST_CASE("calc evaluate reads regular files of bounded size only") {
+    QTemporaryDir dir;
+    // A device never ends and a pipe blocks: both are refused before reading.
+    requireUsageError(evaluate(QStringLiteral("/dev/zero"), {}), "not a regular file");
+    const QString fifo = dir.filePath(QStringLiteral("readings.fifo"));
+    REQUIRE(::mkfifo(QFile::encodeName(fifo).constData(), 0600) == 0);
+    requireUsageError(evaluate(fifo, {}), "not a regular file");
+    // Past the documented limit (4 MiB), refused without reading it all.
+    const QString big = rawFixture(dir, "big.csv", QByteArray(4 * 1024 * 1024 + 1, '1'));
+    requireUsageError(evaluate(big, {}), "larger than 4 MiB");
+}
+
+TEST_CASE("calc evaluate quotes a short escaped excerpt of a long or odd cell") {
+    QTemporaryDir dir;
+    const QByteArray cell = QByteArray("1x") + QByteArray(100'000, 'y');
+    const QString csv = rawFixture(dir, "long.csv", "applied,indicated\n1," + cell + "\n");
+    const mwtest::CliResult result = mwtest::calc::run(evaluate(csv, {}));
+    CHECK(result.exitCode == 2);
+    CHECK(result.err.count('\n') == 1);
+    CHECK(result.err.size() < 600);
+    const mwtest::CliResult newline = requireUsageError(
+        args({"shunt", "--ifs", "1\nmA", "--rm", "100", "--range", "1A"}), "\\x0a");
+    CHECK(newline.err.count('\n') == 1);
 }

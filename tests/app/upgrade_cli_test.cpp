@@ -34,7 +34,8 @@ TEST_CASE("a read-only command given an older workbook says to upgrade it", "[up
     QTemporaryDir dir;
     const QString path = copyOfOldWorkbook(dir);
     const QByteArray before = hashOf(path);
-    const auto run = runMeterwright({QStringLiteral("verify"), path});
+    // verify and backup take an older workbook as it is; listing its sessions needs the upgrade.
+    const auto run = runMeterwright({QStringLiteral("sessions"), path});
     CHECK(run.exitCode == 2);
     CHECK(run.errText().contains(QStringLiteral("run \"meterwright upgrade %1\"").arg(path)));
     CHECK(run.errText().count(QLatin1Char('\n')) == 1);

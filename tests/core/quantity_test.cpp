@@ -53,6 +53,8 @@ TEST_CASE("values a technician types parse to the right number and unit") {
         {"2.2Mohm", 2.2e6, Unit::Ohm},
         {"100R", 100.0, Unit::Ohm},
         {"1e3", 1000.0, Unit::Dimensionless},
+        {"1e0000001", 10.0, Unit::Dimensionless}, // the exponent's value counts, not its digits
+        {"5e-000000003 V", 5e-3, Unit::Volt},
         {"2.5E-3 A", 2.5e-3, Unit::Ampere},
         {"-0.25", -0.25, Unit::Dimensionless},
         {"+5", 5.0, Unit::Dimensionless},
@@ -114,6 +116,7 @@ TEST_CASE("bad input is an error that says what, at which character, and why") {
         {"   ", 0, "empty value"},
         {"-", 1, "expected a number after the sign"},
         {"1e", 1, "exponent needs digits"},
+        {"1e-00000000400", 0, "out of the range"},
         {"5 Vx", 2, "unknown unit"},
         {"5 kX", 3, "unknown unit"},
         {"5 x", 2, "unknown unit"},

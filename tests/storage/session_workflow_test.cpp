@@ -4,6 +4,7 @@
 #include "storage/session_repository.h"
 
 #include "core/evaluation/session_evaluation.h"
+#include "storage/rules_repair.h"
 #include "storage/verification.h"
 #include "storage/workbook_error.h"
 #include "tests/storage/workbook_fixture.h"
@@ -82,7 +83,19 @@ TEST_CASE("approval refuses an outcome that no longer follows from the inputs", 
                                                         "= 'conditional-pass' WHERE id = %1")
                                              .arg(id))
                 .isEmpty());
+    {
+        // Without its rules the workbook only opens read-only; an administrator puts them back,
+        // which does not undo the edit.
+        auto withoutRules = temp.open();
+        CHECK(withoutRules->isReadOnly());
+        mw::storage::OpenOptions repair;
+        repair.forRepair = true;
+        withoutRules.reset();
+        auto repairing = temp.open(repair);
+        CHECK_FALSE(mw::storage::repairRules(*repairing, seed.admin.id).isEmpty());
+    }
     auto workbook = temp.open();
+    REQUIRE_FALSE(workbook->isReadOnly());
     try {
         SessionRepository(*workbook).approve(id, seed.reviewer.id, mwtest::at(2025, 3, 6));
         FAIL("approved an outcome the inputs do not give");

@@ -11,8 +11,9 @@
 
 namespace mwtest {
 
-// The demo as of a fixed day, so that its records are the same on every run.
-inline mw::storage::Workbook& readOnlyDemo() {
+// The demo as of a fixed day, so that its records are the same on every run; written once per
+// test program. Tests that change it work on a copy.
+inline const QString& demoWorkbookPath() {
     static QTemporaryDir dir;
     static const QString path = [] {
         const QString file = dir.filePath(QStringLiteral("demo.mwb"));
@@ -20,7 +21,11 @@ inline mw::storage::Workbook& readOnlyDemo() {
             file, std::chrono::sys_days{std::chrono::year{2026} / std::chrono::March / 16});
         return file;
     }();
-    static mw::storage::Workbook workbook(path, mw::storage::OpenOptions{true});
+    return path;
+}
+
+inline mw::storage::Workbook& readOnlyDemo() {
+    static mw::storage::Workbook workbook(demoWorkbookPath(), mw::storage::OpenOptions{true});
     return workbook;
 }
 
