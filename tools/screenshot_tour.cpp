@@ -179,6 +179,9 @@ int main(int argc, char* argv[]) {
 
     // The administrator's instrument editor, a value refused beside its field.
     if (window.signIn(QStringLiteral("morgan"), QStringLiteral("demo-admin"))) {
+        window.showPage(mw::gui::MainWindow::Page::Standards);
+        save(window, folder, QStringLiteral("standards.png"));
+        window.showPage(mw::gui::MainWindow::Page::Register);
         mw::gui::InstrumentEditor editor(window.workspace(), std::nullopt, &window);
         editor.show();
         const auto set = [&editor](const char* name, const QString& text) {

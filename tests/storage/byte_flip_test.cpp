@@ -17,6 +17,8 @@
 #include <map>
 #include <random>
 #include <set>
+#include <utility>
+#include <vector>
 
 namespace {
 
@@ -38,9 +40,24 @@ std::map<QString, QString> contentsOf(const QString& path) {
         while (tables.next()) {
             names << tables.value(0).toString();
         }
+        // Sessions are sealed when approved; one still open (a draft, or one submitted and
+        // waiting for review) is not sealed yet, so its rows are compared apart.
+        std::vector<std::pair<QString, QString>> selects;
         for (const QString& table : names) {
+            if (table == QStringLiteral("calibration_sessions")) {
+                selects.emplace_back(table, QStringLiteral("SELECT * FROM calibration_sessions "
+                                                           "WHERE state IN ('approved', "
+                                                           "'superseded')"));
+                selects.emplace_back(QStringLiteral("calibration_sessions (not yet approved)"),
+                                     QStringLiteral("SELECT * FROM calibration_sessions WHERE "
+                                                    "state NOT IN ('approved', 'superseded')"));
+            } else {
+                selects.emplace_back(table, QStringLiteral("SELECT * FROM \"%1\"").arg(table));
+            }
+        }
+        for (const auto& [table, select] : selects) {
             QSqlQuery rows(db);
-            rows.exec(QStringLiteral("SELECT * FROM \"%1\"").arg(table));
+            rows.exec(select);
             QString& text = contents[table];
             while (rows.next()) {
                 for (int i = 0; i < rows.record().count(); ++i) {
@@ -105,7 +122,7 @@ TEST_CASE("single byte flips are refused, found, or change nothing", "[byte-flip
             if (!report.sound()) {
                 ++unsound;
             } else {
-                // Sound: the chain of sealed records and the sessions' states are as they were.
+                // Sound: the chain and the approved sessions are as they were.
                 const QStringList changed = changedTables(contentsOf(copy), contents);
                 CHECK_FALSE(changed.contains(QStringLiteral("record_chain")));
                 CHECK_FALSE(changed.contains(QStringLiteral("calibration_sessions")));

@@ -57,6 +57,10 @@ QString standardsText(const DueEntry& entry) {
     return parts.isEmpty() ? QObject::tr("—") : parts.join(QStringLiteral(", "));
 }
 
+QString dayCount(int days) {
+    return days == 1 ? QObject::tr("1 day") : QObject::tr("%1 days").arg(days);
+}
+
 } // namespace
 
 QString dueStateText(const DueEntry& entry) {
@@ -65,12 +69,12 @@ QString dueStateText(const DueEntry& entry) {
     }
     const int days = entry.daysOverdue.value_or(0);
     if (days > 0) {
-        return QObject::tr("overdue by %n day(s)", "", days);
+        return QObject::tr("overdue by %1").arg(dayCount(days));
     }
     if (days == 0) {
         return QObject::tr("due today");
     }
-    return QObject::tr("due in %n day(s)", "", -days);
+    return QObject::tr("due in %1").arg(dayCount(-days));
 }
 
 DuePage::DuePage(Workspace& workspace, QWidget* parent)
@@ -150,9 +154,10 @@ void DuePage::fill() {
             instruments_->setItem(row, DueDate, new QTableWidgetItem(due));
             QTableWidgetItem* state = stateItem(entry);
             if (entry.openState) {
-                state->setText(state->text() +
-                               tr(" · calibration %1")
-                                   .arg(QString::fromUtf8(displayName(*entry.openState).data())));
+                state->setText(
+                    state->text() +
+                    tr(" · calibration open: %1")
+                        .arg(QString::fromUtf8(displayName(*entry.openState).data()).toLower()));
             }
             instruments_->setItem(row, State, state);
             instruments_->setItem(row, StandardsUsed, new QTableWidgetItem(standardsText(entry)));
@@ -175,8 +180,8 @@ void DuePage::fill() {
     }
     instruments_->resizeColumnsToContents();
     standards_->resizeColumnsToContents();
-    summary_->setText(tr("  as of %1: %2 instrument(s) and %3 standard(s) due, %4 of them "
-                         "overdue or never calibrated.")
+    summary_->setText(tr("  as of %1: instruments due %2, standards due %3; overdue or never "
+                         "calibrated: %4.")
                           .arg(isoDate(report_->asOf))
                           .arg(instruments_->rowCount())
                           .arg(standards_->rowCount())

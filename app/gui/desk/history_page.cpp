@@ -347,11 +347,21 @@ void HistoryPage::fillPoints() {
                             .arg(text(p.rangeLabel), text(formatEngineering(p.nominal, 4, p.unit)),
                                  significant ? tr(" — significant drift") : QString()),
                         int(i));
-        if (significant && firstSignificant < 0) {
+        // The point to open on: the one whose trend reaches its limit first, else the first
+        // with a significant drift.
+        const auto reaches = [](const PointHistory& q) {
+            return q.drift && q.drift->significant && q.line && q.line->reachesLimit;
+        };
+        if (significant &&
+            (firstSignificant < 0 ||
+             (reaches(p) &&
+              (!reaches(history_->points[std::size_t(firstSignificant)]) ||
+               *p.line->reachesLimit <
+                   *history_->points[std::size_t(firstSignificant)].line->reachesLimit)))) {
             firstSignificant = int(i);
         }
     }
-    // Open on the point that needs attention, else on the overview.
+    // Open on the point that needs attention most, else on the overview.
     const int choose = firstSignificant >= 0 ? firstSignificant + 1 : 0;
     point_->setCurrentIndex(choose);
     showDriftOf(firstSignificant >= 0 ? std::optional<int>(firstSignificant) : std::nullopt);
