@@ -16,6 +16,7 @@
 #include "storage/session_repository.h"
 #include "storage/standard_repository.h"
 #include "support/cli_process.h"
+#include "tests/support/keyboard.h"
 
 #include <catch2/catch.hpp>
 
@@ -27,11 +28,7 @@
 namespace {
 
 void type(QWidget& parent, const char* name, const QString& text) {
-    auto* line = parent.findChild<QLineEdit*>(QLatin1String(name));
-    REQUIRE(line != nullptr);
-    line->clear();
-    line->setFocus();
-    QTest::keyClicks(line, text);
+    REQUIRE(mwtest::typeIntoField(parent, name, text));
 }
 
 } // namespace

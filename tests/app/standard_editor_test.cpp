@@ -7,6 +7,7 @@
 #include "storage/session_repository.h"
 #include "storage/standard_repository.h"
 #include "tests/support/demo_window.h"
+#include "tests/support/keyboard.h"
 
 #include <catch2/catch.hpp>
 
@@ -20,11 +21,7 @@ using mw::gui::StandardEditor;
 namespace {
 
 void type(QWidget& parent, const char* name, const QString& text) {
-    auto* line = parent.findChild<QLineEdit*>(QLatin1String(name));
-    REQUIRE(line != nullptr);
-    line->clear();
-    line->setFocus();
-    QTest::keyClicks(line, text);
+    REQUIRE(mwtest::typeIntoField(parent, name, text));
 }
 
 void setRange(StandardEditor& editor, int row, const QString& label, const QString& fullScale,

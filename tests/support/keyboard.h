@@ -5,6 +5,7 @@
 
 #include <QAbstractItemView>
 #include <QCoreApplication>
+#include <QLineEdit>
 #include <QTest>
 
 namespace mwtest {
@@ -29,6 +30,19 @@ inline void typeInto(QAbstractItemView* view, const QString& text, Qt::Key end =
     // The delegate saves and closes its editor from the event loop, as it does for a person
     // between two keystrokes.
     QCoreApplication::processEvents();
+}
+
+// Replaces the text of the line edit named `field` inside `parent` by typing `text` into it;
+// false when there is no such field.
+inline bool typeIntoField(QWidget& parent, const char* field, const QString& text) {
+    auto* line = parent.findChild<QLineEdit*>(QLatin1String(field));
+    if (line == nullptr) {
+        return false;
+    }
+    line->clear();
+    line->setFocus();
+    QTest::keyClicks(line, text);
+    return true;
 }
 
 } // namespace mwtest
