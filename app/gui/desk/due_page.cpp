@@ -1,6 +1,7 @@
 #include "app/gui/desk/due_page.h"
 
 #include "app/gui/calendar_days.h"
+#include "app/gui/desk/desk_tables.h"
 #include "app/gui/status_icons.h"
 #include "app/gui/workspace.h"
 
@@ -19,15 +20,8 @@ namespace mw::gui {
 namespace {
 
 QTableWidget* dueTable(const QStringList& headers, const char* name, QWidget* parent) {
-    auto* table = new QTableWidget(0, int(headers.size()), parent);
+    QTableWidget* table = readOnlyTable(headers, parent);
     table->setObjectName(QLatin1String(name));
-    table->setHorizontalHeaderLabels(headers);
-    table->setSelectionBehavior(QAbstractItemView::SelectRows);
-    table->setSelectionMode(QAbstractItemView::SingleSelection);
-    table->setEditTriggers(QAbstractItemView::NoEditTriggers);
-    table->verticalHeader()->hide();
-    table->horizontalHeader()->setStretchLastSection(true);
-    table->setWordWrap(false);
     return table;
 }
 

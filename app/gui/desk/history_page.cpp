@@ -2,6 +2,7 @@
 
 #include "app/gui/calendar_days.h"
 #include "app/gui/desk/desk_dialogs.h"
+#include "app/gui/desk/desk_tables.h"
 #include "app/gui/desk/desk_text.h"
 #include "app/gui/desk/drift_chart_view.h"
 #include "app/gui/status_icons.h"
@@ -31,32 +32,8 @@ QString text(const std::string& value) {
     return QString::fromStdString(value);
 }
 
-QString stepWords(IntervalStepKind kind) {
-    switch (kind) {
-    case IntervalStepKind::Lengthen:
-        return QObject::tr("lengthened");
-    case IntervalStepKind::Keep:
-        return QObject::tr("kept");
-    case IntervalStepKind::Shorten:
-        return QObject::tr("shortened");
-    }
-    return {};
-}
-
 QTableWidgetItem* item(const QString& value) {
     return new QTableWidgetItem(value);
-}
-
-QTableWidget* readOnlyTable(int columns, const QStringList& headers, QWidget* parent) {
-    auto* table = new QTableWidget(0, columns, parent);
-    table->setHorizontalHeaderLabels(headers);
-    table->setSelectionBehavior(QAbstractItemView::SelectRows);
-    table->setSelectionMode(QAbstractItemView::SingleSelection);
-    table->setEditTriggers(QAbstractItemView::NoEditTriggers);
-    table->verticalHeader()->hide();
-    table->horizontalHeader()->setStretchLastSection(true);
-    table->setWordWrap(false);
-    return table;
 }
 
 } // namespace
@@ -88,8 +65,7 @@ void HistoryPage::build() {
     auto* recordsLayout = new QVBoxLayout(records);
     recordsLayout->setContentsMargins(0, 0, 0, 0);
     table_ =
-        readOnlyTable(ColumnCount,
-                      {tr("Started"), tr("Approved"), tr("Rev."), tr("State"), tr("As found"),
+        readOnlyTable({tr("Started"), tr("Approved"), tr("Rev."), tr("State"), tr("As found"),
                        tr("As left"), tr("Worst as-found point"), tr("Technician"), tr("Reviewer")},
                       records);
     table_->setObjectName(QStringLiteral("historyCalibrations"));
@@ -194,8 +170,7 @@ QWidget* HistoryPage::buildInterval(QWidget* parent) {
     interval_->setWordWrap(true);
     interval_->setTextFormat(Qt::RichText);
     layout->addWidget(interval_);
-    steps_ =
-        readOnlyTable(4, {tr("Calibrated"), tr("Found"), tr("Step"), tr("Interval after")}, box);
+    steps_ = readOnlyTable({tr("Calibrated"), tr("Found"), tr("Step"), tr("Interval after")}, box);
     steps_->setObjectName(QStringLiteral("historyIntervalSteps"));
     layout->addWidget(steps_, 1);
     method_ = new QLabel(box);
@@ -400,61 +375,6 @@ void HistoryPage::showDriftOf(std::optional<int> pointIndex) {
     }
 }
 
-void HistoryPage::fillInterval() {
-    steps_->setRowCount(0);
-    if (!history_ || !instrument_) {
-        interval_->clear();
-        method_->clear();
-        adopt_->setEnabled(false);
-        return;
-    }
-    const IntervalFinding& finding = history_->interval;
-    const int registered = instrument_->interval_days;
-    if (!finding.recommendation) {
-        interval_->setText(tr("Interval on the register: <b>%1 days</b>. %2")
-                               .arg(registered)
-                               .arg(text(finding.summary).toHtmlEscaped()));
-        method_->clear();
-        adopt_->setEnabled(false);
-        return;
-    }
-    const IntervalRecommendation& r = *finding.recommendation;
-    interval_->setText(
-        tr("Interval on the register: <b>%1 days</b> · recommended: <b>%2 days</b>%3<br>%4")
-            .arg(registered)
-            .arg(r.recommendedDays)
-            .arg(r.recommendedDays < registered   ? tr(" (shorter)")
-                 : r.recommendedDays > registered ? tr(" (longer)")
-                                                  : tr(" (the same)"),
-                 text(finding.summary).toHtmlEscaped()));
-    for (std::size_t i = 0; i < r.steps.size(); ++i) {
-        const IntervalStep& step = r.steps[i];
-        const int at = steps_->rowCount();
-        steps_->insertRow(at);
-        steps_->setItem(at, 0, item(isoDate(step.date)));
-        QString found;
-        if (i < finding.history.size()) {
-            const AsFoundRecord& record = finding.history[i];
-            found = record.inTolerance ? tr("in tolerance, %1 % of limit")
-                                             .arg(std::lround(record.worstFractionOfLimit * 100.0))
-                                       : tr("✖ out of tolerance, %1 % of limit")
-                                             .arg(std::lround(record.worstFractionOfLimit * 100.0));
-        }
-        steps_->setItem(at, 1, item(found));
-        steps_->setItem(at, 2, item(stepWords(step.kind)));
-        steps_->setItem(at, 3, item(tr("%1 days").arg(std::lround(step.intervalDays))));
-    }
-    steps_->resizeColumnsToContents();
-    // The summary usually states the method already; say it once.
-    method_->setText(finding.summary.find(r.method) == std::string::npos
-                         ? tr("Method: %1").arg(text(r.method))
-                         : QString());
-    const bool admin = workspace_.can(Capability::Administer);
-    adopt_->setEnabled(admin && r.recommendedDays != registered &&
-                       !workspace_.workbook()->isReadOnly());
-    adopt_->setToolTip(admin ? QString() : tr("An administrator sets an instrument's interval."));
-}
-
 bool HistoryPage::selectSession(std::int64_t sessionId) {
     for (int r = 0; r < table_->rowCount(); ++r) {
         if (table_->item(r, Started)->data(Qt::UserRole).toLongLong() == sessionId) {
@@ -537,34 +457,6 @@ std::optional<std::int64_t> HistoryPage::amendSelected(const QString& reason, QS
     return id;
 }
 
-bool HistoryPage::adoptRecommendation(QString* message) {
-    if (!instrument_ || !history_ || !history_->interval.recommendation) {
-        *message = tr("Not changed: there is no recommendation for this instrument.");
-        return false;
-    }
-    if (!workspace_.can(Capability::Administer)) {
-        *message = tr("Not changed: an administrator sets an instrument's interval.");
-        return false;
-    }
-    Instrument changed = *instrument_;
-    const int before = changed.interval_days;
-    changed.interval_days = history_->interval.recommendation->recommendedDays;
-    try {
-        storage::InstrumentRepository(*workspace_.workbook()).update(changed);
-    } catch (const std::exception& error) {
-        *message = tr("Not changed: %1").arg(QString::fromUtf8(error.what()));
-        return false;
-    }
-    *message = tr("Interval of %1 changed from %2 to %3 days (recorded in the audit log).")
-                   .arg(text(changed.asset_tag))
-                   .arg(before)
-                   .arg(changed.interval_days);
-    emit workspace_.notifier()->registerChanged();
-    emit instrumentChanged(changed.id);
-    showInstrument(changed.id);
-    return true;
-}
-
 void HistoryPage::askToAmend() {
     CommentDialog dialog(tr("Amend the record"),
                          tr("Why is this approved record amended? The reason is printed on the "
@@ -580,25 +472,6 @@ void HistoryPage::askToAmend() {
         }
         dialog.showRefusal(message);
     }
-}
-
-void HistoryPage::askToAdopt() {
-    if (!instrument_ || !history_ || !history_->interval.recommendation) {
-        return;
-    }
-    const auto answer = QMessageBox::question(
-        this, tr("Adopt the recommended interval"),
-        tr("Change the calibration interval of %1 from %2 to %3 days? The change is recorded in "
-           "the audit log and the next due date follows it.")
-            .arg(text(instrument_->asset_tag))
-            .arg(instrument_->interval_days)
-            .arg(history_->interval.recommendation->recommendedDays));
-    if (answer != QMessageBox::Yes) {
-        return;
-    }
-    QString message;
-    adoptRecommendation(&message);
-    emit statusMessage(message);
 }
 
 } // namespace mw::gui
