@@ -246,8 +246,10 @@ TEST_CASE("leaving out the rectifier curve changes no result, only what the advi
             CHECK(a[k].decision == b[k].decision);
         }
     }
-    const RangeSpec& ac = meter().ranges[1];
-    CHECK(evaluationInputFor(meter(), ac, s, inputs, Phase::AsFound).predictedError);
-    CHECK_FALSE(evaluationInputFor(meter(), ac, s, inputs, Phase::AsFound, RectifierCurve::Omitted)
-                    .predictedError);
+    const auto instrument = meter(); // kept: the range below refers into it
+    const RangeSpec& ac = instrument.ranges[1];
+    CHECK(evaluationInputFor(instrument, ac, s, inputs, Phase::AsFound).predictedError);
+    CHECK_FALSE(
+        evaluationInputFor(instrument, ac, s, inputs, Phase::AsFound, RectifierCurve::Omitted)
+            .predictedError);
 }
