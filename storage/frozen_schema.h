@@ -9,6 +9,7 @@ namespace mw::storage::frozen {
 
 extern const char* const kSchemaVersion1Sql; // records and integrity rules
 extern const char* const kSchemaVersion2Sql; // the audit log
+extern const char* const kSchemaVersion3Sql; // STRICT tables, sealed sessions (whole schema)
 
 // The statements of a frozen file in order: separated by a line holding only ";", with the
 // file's leading comment lines left out.

@@ -5,7 +5,7 @@
 
 #include "storage/frozen_schema.h"
 #include "storage/schema_upgrade.h"
-#include "storage/schema_v3.h"
+#include "storage/schema_v4.h"
 #include "storage/sql_support.h"
 #include "storage/sqlite_dialect.h"
 #include "storage/sqlite_triggers.h"
@@ -16,6 +16,10 @@ namespace mw::storage::schema {
 namespace {
 
 const QString kContext = QStringLiteral("upgrading the workbook");
+
+Timestamp now() {
+    return std::chrono::floor<std::chrono::seconds>(std::chrono::system_clock::now());
+}
 
 void createVersion1(const QSqlDatabase& db) {
     dialect::setApplicationId(db);
@@ -37,6 +41,9 @@ void step(const QSqlDatabase& db, int from) {
         return;
     case 2:
         upgradeToVersion3(db);
+        return;
+    case 3:
+        upgradeToVersion4(db, now());
         return;
     default:
         throw WorkbookError(WorkbookError::Kind::Internal,
@@ -77,15 +84,16 @@ int inTransaction(const QSqlDatabase& db, int targetVersion, Work work) {
 
 void createCurrentVersion(const QSqlDatabase& db) {
     dialect::setApplicationId(db);
-    for (const schema3::TableDefinition& table : schema3::tables()) {
-        sql::execText(db, schema3::expand(table.createSql),
+    for (const schema4::TableDefinition& table : schema4::tables()) {
+        sql::execText(db, schema4::expand(table.createSql),
                       QStringLiteral("creating table %1").arg(QLatin1String(table.name)));
     }
-    for (const QString& index : schema3::indexes()) {
+    for (const QString& index : schema4::indexes()) {
         sql::execText(db, index, QStringLiteral("creating an index"));
     }
     sql::execText(db, QStringLiteral("INSERT INTO audit_context (id, user_id) VALUES (1, NULL)"),
                   QStringLiteral("creating the audit context"));
+    recordVersionReached(db, kCurrentVersion, now());
     dialect::createTriggers(db);
 }
 

@@ -1,13 +1,14 @@
 // The workbook schema: one version number (PRAGMA user_version) and ordered migrations, each in
 // its own transaction. Version 1: records and integrity rules; 2: the audit log; 3: STRICT
-// tables with checked times, signal types, and the copies a session is sealed with.
+// tables with checked times, signal types, and the copies a session is sealed with; 4: signed
+// approvals that seal the audit log, and the day a standard's certificate was issued.
 #pragma once
 
 #include <QSqlDatabase>
 
 namespace mw::storage::schema {
 
-constexpr int kCurrentVersion = 3;
+constexpr int kCurrentVersion = 4;
 
 // Brings the database from its current version up to `targetVersion` (1 … kCurrentVersion;
 // lower targets only make old workbooks for tests). An empty database asked for the current

@@ -1,13 +1,20 @@
-// The upgrade from schema version 2 to 3: every table is rebuilt STRICT with its new checks and
-// columns, the rows are copied across, and the triggers are created anew from the explicit
-// column lists. What version 2 did not record is marked as not recorded, never invented:
-// sessions sealed under version 2 keep record format 1 with no evaluation settings and no plan
-// (their readings are their plan; the phases planned are those they hold), and a range whose
-// signal type the instrument's kind does not settle is left without one.
+// The upgrades that rebuild every table: the old tables are renamed aside, the new ones created,
+// the rows copied across, the old ones dropped, and the indexes and triggers created anew.
+//
+// 2 -> 3 (to the frozen SQL of version 3): every table STRICT with its new checks and columns.
+// What version 2 did not record is marked as not recorded, never invented: sessions sealed
+// under version 2 keep record format 1 with no evaluation settings and no plan (their readings
+// are their plan; the phases planned are those they hold), and a range whose signal type the
+// instrument's kind does not settle is left without one.
+//
+// 3 -> 4 (to schema_v4.cpp): the day a standard's certificate was issued, approval keys and
+// signatures, the audit log's seals, and the history of versions. The entries of the chain made
+// under version 3 stay unsigned and unsealed; schema_upgrades records how many there are.
 #include "storage/schema_upgrade.h"
 
+#include "storage/frozen_schema.h"
 #include "storage/schema.h"
-#include "storage/schema_v3.h"
+#include "storage/schema_v4.h"
 #include "storage/sql_support.h"
 #include "storage/sqlite_dialect.h"
 #include "storage/sqlite_triggers.h"
@@ -18,38 +25,17 @@
 namespace mw::storage::schema {
 namespace {
 
-const QString kContext = QStringLiteral("upgrading the workbook to version 3");
+const QString kContext = QStringLiteral("upgrading the workbook");
 
-// The version 2 tables in the order their rows are copied.
-const char* const kTables[] = {
-    "users",
-    "lab",
-    "instruments",
-    "instrument_ranges",
-    "reference_standards",
-    "standard_specs",
-    "calibration_sessions",
-    "session_standards",
-    "readings",
-    "resistor_checks",
-    "adjustment_notes",
-    "record_chain",
-    "audit_log",
-    "audit_context",
+// A table of the version being reached, with its columns in order.
+struct Target {
+    QString name;
+    QStringList columns;
 };
 
-QString legacy(const char* table) {
-    return QStringLiteral("v2_") + QLatin1String(table);
-}
-
 // The SELECT list that turns a version 2 row into a version 3 row, column for column in the
-// order of schema_v3.cpp; nullptr: every column is copied as it is.
-const char* selectFor(const QString& table) {
-    if (table == QLatin1String("reference_standards")) {
-        // Version 2 did not record the day of the certificate's calibration.
-        return "id, asset_tag, description, certificate_number, due_date, NULL FROM "
-               "v2_reference_standards";
-    }
+// order of the frozen version 3 tables; nullptr: every column is copied as it is.
+const char* selectFromVersion2(const QString& table) {
     if (table == QLatin1String("lab")) {
         // Version 2 had no number-writing or due-window settings: the defaults.
         return "id, name, address, accreditation_id, 0, 30 FROM v2_lab";
@@ -91,25 +77,39 @@ const char* selectFor(const QString& table) {
     return nullptr;
 }
 
-QString columnList(const schema3::TableDefinition& table) {
+QStringList columnsOf(const QSqlDatabase& db, const QString& table) {
+    QSqlQuery q = sql::prepare(db, QStringLiteral("SELECT name FROM pragma_table_info(?)"));
+    q.addBindValue(table);
+    sql::exec(q, kContext);
     QStringList columns;
-    for (const char* column : table.columns) {
-        columns << QLatin1String(column);
+    while (q.next()) {
+        columns << q.value(0).toString();
     }
-    return columns.join(QStringLiteral(", "));
+    return columns;
 }
 
-QString selectOf(const schema3::TableDefinition& table) {
-    const QString name = QLatin1String(table.name);
-    if (const char* special = selectFor(name)) {
-        return QStringLiteral("SELECT ") + QLatin1String(special);
+// The SELECT that gives a new row of `table` from the old table renamed aside as
+// `prefix + name`: a column the old table has is copied, a new one is NULL (not recorded).
+QString selectOf(const QSqlDatabase& db, const Target& table, const QString& prefix,
+                 int fromVersion) {
+    if (fromVersion == 2) {
+        if (const char* special = selectFromVersion2(table.name)) {
+            return QStringLiteral("SELECT ") + QLatin1String(special);
+        }
     }
-    return QStringLiteral("SELECT %1 FROM v2_%2").arg(columnList(table), name);
+    const QStringList old = columnsOf(db, prefix + table.name);
+    QStringList select;
+    for (const QString& column : table.columns) {
+        select << (old.contains(column) ? column : QStringLiteral("NULL"));
+    }
+    return QStringLiteral("SELECT %1 FROM %2%3")
+        .arg(select.join(QStringLiteral(", ")), prefix, table.name);
 }
 
 QStringList namesOf(const QSqlDatabase& db, const QString& type) {
     QSqlQuery q = sql::prepare(db, QStringLiteral("SELECT name FROM sqlite_master WHERE type = ? "
-                                                  "AND sql IS NOT NULL"));
+                                                  "AND sql IS NOT NULL AND name NOT LIKE "
+                                                  "'sqlite\\_%' ESCAPE '\\' ORDER BY rowid"));
     q.addBindValue(type);
     sql::exec(q, kContext);
     QStringList names;
@@ -121,21 +121,21 @@ QStringList namesOf(const QSqlDatabase& db, const QString& type) {
 
 // A failed bulk copy is repeated row by row to name the row a version 3 check refuses (a time
 // that is not a time, text in a number column ...), so the user knows what to repair.
-[[noreturn]] void explainRefusedRow(const QSqlDatabase& db, const schema3::TableDefinition& table,
-                                    const WorkbookError& bulkError) {
-    const QString name = QLatin1String(table.name);
+[[noreturn]] void explainRefusedRow(const QSqlDatabase& db, const Target& table,
+                                    const QString& select, const WorkbookError& bulkError) {
+    const QString& name = table.name;
     QSqlQuery rows(db);
     rows.setForwardOnly(true);
-    if (!rows.exec(selectOf(table))) {
+    if (!rows.exec(select)) {
         throw bulkError;
     }
     QStringList marks;
-    for (std::size_t i = 0; i < table.columns.size(); ++i) {
+    for (qsizetype i = 0; i < table.columns.size(); ++i) {
         marks << QStringLiteral("?");
     }
-    QSqlQuery insert =
-        sql::prepare(db, QStringLiteral("INSERT INTO %1 (%2) VALUES (%3)")
-                             .arg(name, columnList(table), marks.join(QStringLiteral(", "))));
+    QSqlQuery insert = sql::prepare(db, QStringLiteral("INSERT INTO %1 (%2) VALUES (%3)")
+                                            .arg(name, table.columns.join(QStringLiteral(", ")),
+                                                 marks.join(QStringLiteral(", "))));
     while (rows.next()) {
         for (int i = 0; i < rows.record().count(); ++i) {
             insert.addBindValue(rows.value(i));
@@ -143,8 +143,7 @@ QStringList namesOf(const QSqlDatabase& db, const QString& type) {
         if (!insert.exec()) {
             QStringList key;
             for (int i = 0; i < 2 && i < rows.record().count(); ++i) {
-                key << QStringLiteral("%1 = %2").arg(QLatin1String(table.columns[std::size_t(i)]),
-                                                     rows.value(i).toString());
+                key << QStringLiteral("%1 = %2").arg(table.columns[i], rows.value(i).toString());
             }
             throw WorkbookError(
                 WorkbookError::Kind::Corrupt,
@@ -156,45 +155,106 @@ QStringList namesOf(const QSqlDatabase& db, const QString& type) {
     throw bulkError;
 }
 
-void copyRows(const QSqlDatabase& db, const schema3::TableDefinition& table) {
+void copyRows(const QSqlDatabase& db, const Target& table, const QString& prefix, int fromVersion) {
+    const QString select = selectOf(db, table, prefix, fromVersion);
     const QString statement =
         QStringLiteral("INSERT INTO %1 (%2) %3")
-            .arg(QLatin1String(table.name), columnList(table), selectOf(table));
+            .arg(table.name, table.columns.join(QStringLiteral(", ")), select);
     try {
         sql::execText(db, statement, kContext);
     } catch (const WorkbookError& error) {
-        explainRefusedRow(db, table, error);
+        explainRefusedRow(db, table, select, error);
     }
 }
 
-} // namespace
-
-void upgradeToVersion3(const QSqlDatabase& db) {
+// Renames every table of the old version aside (its triggers and indexes dropped first), runs
+// `createTables`, copies the rows of each old table into the new table of the same name, and
+// drops the old ones. Returns the new tables. The caller then creates indexes and triggers.
+template <typename CreateTables>
+void rebuildTables(const QSqlDatabase& db, int fromVersion, CreateTables createTables) {
+    const QString prefix = QStringLiteral("v%1_").arg(fromVersion);
     for (const QString& trigger : namesOf(db, QStringLiteral("trigger"))) {
         sql::execText(db, QStringLiteral("DROP TRIGGER %1").arg(trigger), kContext);
     }
     for (const QString& index : namesOf(db, QStringLiteral("index"))) {
         sql::execText(db, QStringLiteral("DROP INDEX %1").arg(index), kContext);
     }
-    for (const char* table : kTables) {
-        sql::execText(
-            db,
-            QStringLiteral("ALTER TABLE %1 RENAME TO %2").arg(QLatin1String(table), legacy(table)),
-            kContext);
+    const QStringList oldTables = namesOf(db, QStringLiteral("table"));
+    for (const QString& table : oldTables) {
+        sql::execText(db, QStringLiteral("ALTER TABLE %1 RENAME TO %2%1").arg(table, prefix),
+                      kContext);
     }
-    for (const schema3::TableDefinition& table : schema3::tables()) {
-        sql::execText(db, schema3::expand(table.createSql), kContext);
+    const std::vector<Target> created = createTables();
+    for (const Target& table : created) {
+        if (oldTables.contains(table.name)) {
+            copyRows(db, table, prefix, fromVersion);
+        }
     }
-    for (const char* table : kTables) {
-        copyRows(db, schema3::table(QLatin1String(table)));
+    for (const QString& table : oldTables) {
+        sql::execText(db, QStringLiteral("DROP TABLE %1%2").arg(prefix, table), kContext);
     }
-    for (const char* table : kTables) {
-        sql::execText(db, QStringLiteral("DROP TABLE %1").arg(legacy(table)), kContext);
+}
+
+bool startsWith(const QString& statement, const char* keyword) {
+    return statement.trimmed().startsWith(QLatin1String(keyword), Qt::CaseInsensitive);
+}
+
+} // namespace
+
+void upgradeToVersion3(const QSqlDatabase& db) {
+    const QStringList statements = frozen::statements(frozen::kSchemaVersion3Sql);
+    rebuildTables(db, 2, [&] {
+        std::vector<Target> created;
+        for (const QString& statement : statements) {
+            if (startsWith(statement, "CREATE TABLE")) {
+                sql::execText(db, statement, kContext);
+                const QString name = statement.section(QLatin1Char(' '), 2, 2);
+                created.push_back({name, columnsOf(db, name)});
+            }
+        }
+        return created;
+    });
+    // Indexes, then triggers, as version 3 created them; its one row of audit context came
+    // across with the rows.
+    for (const QString& statement : statements) {
+        if (startsWith(statement, "CREATE INDEX") || startsWith(statement, "CREATE UNIQUE")) {
+            sql::execText(db, statement, kContext);
+        }
     }
-    for (const QString& index : schema3::indexes()) {
+    for (const QString& statement : statements) {
+        if (startsWith(statement, "CREATE TRIGGER")) {
+            sql::execText(db, statement, kContext);
+        }
+    }
+}
+
+void upgradeToVersion4(const QSqlDatabase& db, Timestamp at) {
+    rebuildTables(db, 3, [&] {
+        std::vector<Target> created;
+        for (const schema4::TableDefinition& table : schema4::tables()) {
+            sql::execText(db, schema4::expand(table.createSql), kContext);
+            QStringList columns;
+            for (const char* column : table.columns) {
+                columns << QLatin1String(column);
+            }
+            created.push_back({QLatin1String(table.name), columns});
+        }
+        return created;
+    });
+    for (const QString& index : schema4::indexes()) {
         sql::execText(db, index, kContext);
     }
+    recordVersionReached(db, 4, at);
     dialect::createTriggers(db);
+}
+
+void recordVersionReached(const QSqlDatabase& db, int version, Timestamp at) {
+    QSqlQuery q = sql::prepare(db, QStringLiteral("INSERT INTO schema_upgrades (version, "
+                                                  "reached_at, chain_length) VALUES (?, ?, "
+                                                  "(SELECT count(*) FROM record_chain))"));
+    q.addBindValue(version);
+    q.addBindValue(sql::toIso(at));
+    sql::exec(q, kContext);
 }
 
 } // namespace mw::storage::schema

@@ -8,6 +8,7 @@
 #include "core/model/instrument.h"
 #include "core/model/reference_standard.h"
 #include "core/plan/session_plan.h"
+#include "storage/signing_keys.h"
 
 #include <QString>
 
@@ -116,9 +117,11 @@ public:
     // submitted -> approved: evaluates the session again from its sealed copies and refuses
     // when the outcome differs from the one submitted (something changed); records the
     // reviewer and time, computes the record digest chained with the previously approved
-    // record, and commits with synchronous=FULL. When the session amends an earlier one, that
-    // one becomes superseded in the same commit. Returns the digest.
-    QString approve(std::int64_t sessionId, std::int64_t reviewerId, Timestamp at);
+    // record, seals the audit log up to its newest row, signs both with the reviewer's opened
+    // key (`signer`, storage/signing_keys.h), and commits with synchronous=FULL. When the
+    // session amends an earlier one, that one becomes superseded in the same commit. Returns
+    // the digest.
+    QString approve(std::int64_t sessionId, const ApprovalSigner& signer, Timestamp at);
     // Starts an amendment of an approved session: a new draft revision holding a copy of its
     // plan, readings, checks, notes, standards and sealed copies, referring to it, with the
     // reason (required).

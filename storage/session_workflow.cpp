@@ -1,6 +1,7 @@
 // The review workflow of calibration sessions: submit, return, reopen, approve (sealing the
 // record into the digest chain) and amend.
 #include "core/evaluation/session_evaluation.h"
+#include "storage/audit_seal.h"
 #include "storage/instrument_repository.h"
 #include "storage/record_digest.h"
 #include "storage/session_loader.h"
@@ -232,7 +233,9 @@ void SessionRepository::requireUnchangedOutcome(const CalibrationSession& sessio
     }
 }
 
-QString SessionRepository::approve(std::int64_t sessionId, std::int64_t reviewerId, Timestamp at) {
+QString SessionRepository::approve(std::int64_t sessionId, const ApprovalSigner& signer,
+                                   Timestamp at) {
+    const std::int64_t reviewerId = signer.userId;
     const QSqlDatabase db = workbook_.database();
     Transaction transaction(workbook_, Transaction::Durability::Full);
     requireUnchangedOutcome(loadOne(db, sessionId));
@@ -249,13 +252,21 @@ QString SessionRepository::approve(std::int64_t sessionId, std::int64_t reviewer
     const QString previous = lastDigest(db);
     const RecordContexts contexts(db, record.instrument_id);
     const QString digest = chainDigest(previous, canonicalRecord(record, contexts.of(record)));
-    QSqlQuery seal = sql::prepare(db, QStringLiteral("INSERT INTO record_chain (session_id, "
-                                                     "previous_digest, digest, recorded_at) "
-                                                     "VALUES (?, ?, ?, ?)"));
+    // Inside this transaction no other writer can add to the audit log between the seal and
+    // the chain entry that records it.
+    const AuditSeal audit = extendAuditSeal(db, lastAuditSeal(db));
+    QSqlQuery seal = sql::prepare(
+        db, QStringLiteral("INSERT INTO record_chain (session_id, previous_digest, digest, "
+                           "recorded_at, audit_through_id, audit_digest, signing_key_id, "
+                           "signature) VALUES (?, ?, ?, ?, ?, ?, ?, ?)"));
     seal.addBindValue(qint64(sessionId));
     seal.addBindValue(previous);
     seal.addBindValue(digest);
     seal.addBindValue(sql::toIso(at));
+    seal.addBindValue(audit.throughId > 0 ? QVariant(qint64(audit.throughId)) : QVariant());
+    seal.addBindValue(audit.throughId > 0 ? QVariant(audit.digest) : QVariant());
+    seal.addBindValue(qint64(signer.keyId));
+    seal.addBindValue(signer.secretKey.sign(approvalMessage(digest, audit)));
     sql::exec(seal, QStringLiteral("sealing calibration session %1").arg(sessionId));
     if (record.supersedes_id) {
         QSqlQuery old = sql::prepare(db, QStringLiteral("UPDATE calibration_sessions SET state "

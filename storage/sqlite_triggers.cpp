@@ -1,10 +1,10 @@
-// The integrity rules of schema version 3 as SQLite triggers: sessions change only through
+// The integrity rules of schema version 4 as SQLite triggers: sessions change only through
 // their workflow, their parts only while a draft, an approved record never; copies of the
 // standards and ranges a session used are true copies; the instrument an approved record rests
-// on keeps what the record rests on. Column lists come from schema_v3.cpp, never from the file.
+// on keeps what the record rests on. Column lists come from schema_v4.cpp, never from the file.
 #include "storage/sqlite_triggers.h"
 
-#include "storage/schema_v3.h"
+#include "storage/schema_v4.h"
 #include "storage/sql_support.h"
 
 namespace mw::storage::dialect {
@@ -24,7 +24,7 @@ QString stateOf(const QString& sessionIdExpression) {
 
 QStringList columnsOf(const char* table) {
     QStringList columns;
-    for (const char* column : schema3::table(QLatin1String(table)).columns) {
+    for (const char* column : schema4::table(QLatin1String(table)).columns) {
         columns << QLatin1String(column);
     }
     return columns;
@@ -145,6 +145,8 @@ void createFrozenSessionTriggers(const QSqlDatabase& db) {
                 .arg(kEditable));
 }
 
+QString same(const QStringList& columns, const QString& a, const QString& b);
+
 void createRecordTriggers(const QSqlDatabase& db) {
     // Readings, resistor checks and range copies belong to a range of the session's own
     // instrument, and a reading is in that range's unit.
@@ -178,6 +180,39 @@ void createRecordTriggers(const QSqlDatabase& db) {
         run(db, QStringLiteral("CREATE TRIGGER record_chain_append_only_%1 BEFORE %2 ON "
                                "record_chain BEGIN SELECT RAISE(ABORT, 'record_chain: the chain "
                                "of approved records is append-only'); END")
+                    .arg(QString::fromLatin1(event).toLower(), QLatin1String(event)));
+    }
+    // An approval entered from version 4 on is signed with its reviewer's key in use and
+    // seals the audit log.
+    run(db, QStringLiteral(
+                "CREATE TRIGGER record_chain_signed BEFORE INSERT ON record_chain WHEN %1 IS "
+                "'approved' AND (NEW.audit_digest IS NULL OR NOT EXISTS (SELECT 1 FROM "
+                "signing_keys k JOIN calibration_sessions s ON s.reviewer_id = k.user_id WHERE "
+                "k.id = NEW.signing_key_id AND s.id = NEW.session_id AND k.retired_at IS NULL)) "
+                "BEGIN SELECT RAISE(ABORT, 'record_chain: an approval is signed with the "
+                "reviewer''s own key in use and seals the audit log'); END")
+                .arg(stateOf(QStringLiteral("NEW.session_id"))));
+    run(db, QStringLiteral("CREATE TRIGGER signing_keys_kept BEFORE DELETE ON signing_keys "
+                           "BEGIN SELECT RAISE(ABORT, 'signing_keys: a key is retired, never "
+                           "deleted, so that what it signed stays verifiable'); END"));
+    run(db, QStringLiteral("CREATE TRIGGER signing_keys_fixed BEFORE UPDATE ON signing_keys "
+                           "WHEN OLD.retired_at IS NOT NULL OR NOT (%1) BEGIN SELECT "
+                           "RAISE(ABORT, 'signing_keys: a key never changes; it is retired "
+                           "once'); END")
+                .arg(same({QStringLiteral("id"), QStringLiteral("user_id"),
+                           QStringLiteral("public_key"), QStringLiteral("sealed_secret"),
+                           QStringLiteral("created_at")},
+                          QStringLiteral("NEW"), QStringLiteral("OLD"))));
+    // Refused before conflict resolution, so an INSERT OR REPLACE cannot drop the key in use.
+    run(db, QStringLiteral("CREATE TRIGGER signing_keys_one_in_use BEFORE INSERT ON "
+                           "signing_keys WHEN NEW.retired_at IS NULL AND EXISTS (SELECT 1 FROM "
+                           "signing_keys k WHERE k.user_id = NEW.user_id AND k.retired_at IS "
+                           "NULL) BEGIN SELECT RAISE(ABORT, 'signing_keys: retire the key in use "
+                           "before another is issued'); END"));
+    for (const char* event : {"UPDATE", "DELETE"}) {
+        run(db, QStringLiteral("CREATE TRIGGER schema_upgrades_append_only_%1 BEFORE %2 ON "
+                               "schema_upgrades BEGIN SELECT RAISE(ABORT, 'schema_upgrades: the "
+                               "history of the workbook''s versions is append-only'); END")
                     .arg(QString::fromLatin1(event).toLower(), QLatin1String(event)));
     }
     run(db, QStringLiteral("CREATE TRIGGER users_kept BEFORE DELETE ON users BEGIN SELECT "

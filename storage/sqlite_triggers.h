@@ -1,5 +1,5 @@
 // The triggers of the current schema version (SQLite RAISE syntax), built from the explicit
-// column lists of schema_v3.cpp: integrity rules (sqlite_triggers.cpp), the audit log and the
+// column lists of schema_v4.cpp: integrity rules (sqlite_triggers.cpp), the audit log and the
 // key guards (sqlite_triggers_audit.cpp).
 #pragma once
 

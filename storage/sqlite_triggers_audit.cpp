@@ -1,6 +1,6 @@
 // The audit log's triggers and the guards that refuse replacing a row by its key, for schema
-// version 3, with every column named from schema_v3.cpp.
-#include "storage/schema_v3.h"
+// version 4, with every column named from schema_v4.cpp.
+#include "storage/schema_v4.h"
 #include "storage/sqlite_dialect.h"
 #include "storage/sqlite_triggers.h"
 
@@ -23,10 +23,13 @@ const char* const kAuditedTables[] = {
     "resistor_checks",
     "adjustment_notes",
     "record_chain",
+    "signing_keys",
 };
 
-// Columns never written to the audit log (a password hash is no one's business).
-const QStringList kUnaudited = {QStringLiteral("password_hash")};
+// Columns never written to the audit log: a password hash or a sealed key is no one's business,
+// and JSON holds no BLOB (a key or a signature is its row's, which is never deleted).
+const QStringList kUnaudited = {QStringLiteral("password_hash"), QStringLiteral("sealed_secret"),
+                                QStringLiteral("public_key"), QStringLiteral("signature")};
 
 QString jsonOf(const std::vector<const char*>& columns, const QString& row) {
     QStringList pairs;
@@ -43,7 +46,7 @@ QString jsonOf(const std::vector<const char*>& columns, const QString& row) {
 // delete logs them as old values. Repeating every reading in the log would double the file and
 // the time quick_check takes on every open. A row without an id of its own is logged with its
 // key, so the log can say which reading was added.
-void createAuditTriggersFor(const QSqlDatabase& db, const schema3::TableDefinition& table) {
+void createAuditTriggersFor(const QSqlDatabase& db, const schema4::TableDefinition& table) {
     const QString name = QLatin1String(table.name);
     const QString insert = QStringLiteral(
         "INSERT INTO audit_log (at, user_id, table_name, row_id, action, old_values, new_values) "
@@ -76,7 +79,7 @@ struct TableKey {
     QStringList columns;
 };
 
-// Every PRIMARY KEY and UNIQUE constraint of the tables of schema_v3.cpp. Rows are saved by
+// Every PRIMARY KEY and UNIQUE constraint of the tables of schema_v4.cpp. Rows are saved by
 // updating the existing row, then inserting a new one: never by an upsert, whose BEFORE INSERT
 // triggers would refuse every re-save.
 std::vector<TableKey> recordKeys() {
@@ -113,6 +116,9 @@ std::vector<TableKey> recordKeys() {
         key("record_chain", {"id"}),
         key("record_chain", {"session_id"}),
         key("record_chain", {"digest"}),
+        key("signing_keys", {"id"}),
+        key("signing_keys", {"public_key"}),
+        key("schema_upgrades", {"version"}),
         key("audit_log", {"id"}),
         key("audit_context", {"id"}),
     };
@@ -157,7 +163,7 @@ void createKeyTriggersFor(const QSqlDatabase& db, const TableKey& key) {
 
 void createAuditTriggers(const QSqlDatabase& db) {
     for (const char* table : kAuditedTables) {
-        createAuditTriggersFor(db, schema3::table(QLatin1String(table)));
+        createAuditTriggersFor(db, schema4::table(QLatin1String(table)));
     }
     for (const char* event : {"UPDATE", "DELETE"}) {
         run(db, QStringLiteral("CREATE TRIGGER audit_log_append_only_%1 BEFORE %2 ON audit_log "

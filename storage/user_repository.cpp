@@ -2,6 +2,7 @@
 #include "storage/user_repository.h"
 
 #include "storage/password_hash.h"
+#include "storage/signing_keys.h"
 #include "storage/sql_support.h"
 #include "storage/transaction.h"
 #include "storage/workbook.h"
@@ -90,6 +91,10 @@ void UserRepository::setPassword(std::int64_t userId, const QString& password) {
     if (query.numRowsAffected() != 1) {
         throw WorkbookError(Kind::NotFound, QStringLiteral("no user with id %1").arg(userId));
     }
+    // The sealed approval key opens only with the old password: it is retired (what it signed
+    // stays verifiable) and the next approval issues one under the new password.
+    retireApprovalKey(workbook_.database(), userId,
+                      std::chrono::floor<std::chrono::seconds>(std::chrono::system_clock::now()));
     transaction.commit();
 }
 

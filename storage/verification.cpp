@@ -228,6 +228,7 @@ void detail::checkRecords(const QSqlDatabase& db, VerificationReport& report) {
         }
         checkVerdict(s, contexts->of(s), report);
     }
+    checkSeals(db, report);
 }
 
 } // namespace mw::storage

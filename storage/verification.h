@@ -37,8 +37,11 @@ struct VerificationReport {
     std::optional<std::int64_t> firstMismatchSessionId;
     // The chain head, to compare with a copy kept elsewhere: a chain cut back or rebuilt
     // inside the file still verifies, but its head no longer matches the copy.
-    int chainLength = 0;     // entries in the chain
-    QString chainHeadDigest; // digest of the last entry ("" when the chain is empty)
+    int signaturesChecked = 0; // approvals whose reviewer's signature was checked
+    int auditRowsChecked = 0;  // audit log rows folded into its chain
+    int auditRowsUnsealed = 0; // of those, rows after the newest approval (sealed by the next)
+    int chainLength = 0;       // entries in the chain
+    QString chainHeadDigest;   // digest of the last entry ("" when the chain is empty)
 
     bool sound() const { return integrityOk && problems.isEmpty(); }
     // Records a problem; `at` places it before those found since (e.g. the chain before the
@@ -58,6 +61,8 @@ VerificationReport verifyWorkbookFile(const QString& path);
 namespace detail {
 // The chain and the sessions of a workbook at the current version (verification.cpp).
 void checkRecords(const QSqlDatabase& db, VerificationReport& report);
+// The signatures of the chain and the audit log's seals (verification_seals.cpp).
+void checkSeals(const QSqlDatabase& db, VerificationReport& report);
 } // namespace detail
 
 } // namespace mw::storage

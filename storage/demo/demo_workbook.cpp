@@ -36,6 +36,7 @@ struct People {
     std::int64_t technician = 0;
     std::int64_t reviewer = 0;
     std::int64_t administrator = 0;
+    QString reviewerPassword; // opens the reviewer's approval key
 };
 
 People addUsers(Workbook& workbook) {
@@ -50,7 +51,7 @@ People addUsers(Workbook& workbook) {
     users.add(demo[0].user, demo[0].password);
     users.add(demo[1].user, demo[1].password);
     transaction.commit();
-    return People{demo[0].user.id, demo[1].user.id, admin.user.id};
+    return People{demo[0].user.id, demo[1].user.id, admin.user.id, demo[1].password};
 }
 
 // The register as it stood five years ago: each standard with the certificate it held then,
@@ -174,7 +175,8 @@ public:
             break;
         case Action::ApproveAmendment:
             workbook_.setActor(people_.reviewer);
-            sessions_.approve(revisionIds_[event.subject], people_.reviewer,
+            sessions_.approve(revisionIds_[event.subject],
+                              signer(planned_[event.subject].amendment->approved_at),
                               planned_[event.subject].amendment->approved_at);
             break;
         case Action::LeaveService:
@@ -184,6 +186,15 @@ public:
     }
 
 private:
+    // The reviewer's approval key, opened once (issued at the first approval).
+    const storage::ApprovalSigner& signer(Timestamp at) {
+        if (!signer_) {
+            signer_.emplace(storage::unlockApprovalKey(workbook_, people_.reviewer,
+                                                       people_.reviewerPassword, at));
+        }
+        return *signer_;
+    }
+
     void recalibrate(std::size_t standardIndex, std::size_t certificateIndex) {
         ReferenceStandard& standard = standards_.register_rows[standardIndex];
         const DemoCertificate& certificate =
@@ -212,7 +223,7 @@ private:
         const PlannedSession& planned = planned_[index];
         workbook_.setActor(people_.reviewer);
         if (planned.fate == Fate::Approved) {
-            sessions_.approve(ids_[index], people_.reviewer, planned.decided_at);
+            sessions_.approve(ids_[index], signer(planned.decided_at), planned.decided_at);
         } else {
             sessions_.returnToTechnician(ids_[index], people_.reviewer,
                                          QString::fromStdString(planned.return_comment),
@@ -250,6 +261,7 @@ private:
     std::vector<PlannedSession>& planned_;
     std::vector<std::int64_t> ids_;         // per planned session, once recorded
     std::vector<std::int64_t> revisionIds_; // its amendment, if any
+    std::optional<storage::ApprovalSigner> signer_;
 };
 
 DemoSummary summarise(Workbook& workbook, const std::vector<Instrument>& instruments,

@@ -191,13 +191,16 @@ TEST_CASE("restores killed at random moments leave a whole workbook in place", "
 
 TEST_CASE("upgrades killed at random moments leave a whole workbook of either version", "[kill]") {
     QTemporaryDir dir;
-    const QString fixture = QStringLiteral(MW_OLD_WORKBOOKS_DIR "/workbook-v2.mwb");
+    // Both rebuilding steps: version 2 through 3 and 4, and version 3 to 4, in turn.
+    const QString fixtures[] = {QStringLiteral(MW_OLD_WORKBOOKS_DIR "/workbook-v2.mwb"),
+                                QStringLiteral(MW_OLD_WORKBOOKS_DIR "/workbook-v3.mwb")};
     const QString target = dir.filePath(QStringLiteral("old.mwb"));
     const QStringList arguments{QStringLiteral("upgrade"), target};
-    REQUIRE(QFile::copy(fixture, target));
+    REQUIRE(QFile::copy(fixtures[0], target));
     const int duration = durationOf(arguments);
     for (int kill = 0; kill < kKills; ++kill) {
-        CAPTURE(kill);
+        const QString& fixture = fixtures[kill % 2];
+        CAPTURE(kill, fixture);
         for (const QString& name : QDir(dir.path()).entryList(QDir::Files | QDir::Hidden)) {
             QFile::remove(dir.filePath(name));
         }

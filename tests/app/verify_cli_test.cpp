@@ -5,6 +5,7 @@
 #include "storage/user_repository.h"
 #include "storage/workbook.h"
 #include "support/cli_process.h"
+#include "tests/storage/workbook_fixture.h"
 
 #include <catch2/catch.hpp>
 
@@ -57,7 +58,8 @@ std::int64_t writeWorkbook(const QString& path) {
                        mw::Unit::Volt, 5.0, 5.05}};
         sessions.create(s);
         sessions.submit(s.id, day(d, 11));
-        sessions.approve(s.id, reviewer.id, day(d, 15));
+        sessions.approve(s.id, mwtest::signer(workbook, reviewer.id, QStringLiteral("r-pass")),
+                         day(d, 15));
         last = s.id;
     }
     return last;

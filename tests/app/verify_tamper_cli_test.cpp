@@ -121,6 +121,42 @@ TEST_CASE("verify finds dropped rules, and the workbook opens read-only until re
     CHECK_FALSE(mw::storage::Workbook(path).isReadOnly());
 }
 
+TEST_CASE("the audit log edited with the shell is found by the approval that sealed it",
+          "[verify][seals]") {
+    // The demo's approvals are signed and seal the audit log; rows up to the newest approval
+    // are covered, whether the rules stay in place or are dropped for the edit.
+    QTemporaryDir dir;
+    const QString lastSealed = QStringLiteral("(SELECT max(audit_through_id) FROM record_chain)");
+    SECTION("all rows deleted, triggers dropped") {
+        const QString path = copyOfDemo(dir);
+        shell(path, dropTriggers(path) + QStringLiteral("DELETE FROM audit_log;"));
+        requireUnsound(path, QStringLiteral("is missing from the log"));
+    }
+    SECTION("one row deleted, its rule put back") {
+        const QString path = copyOfDemo(dir);
+        const QString rule = shell(path, QStringLiteral("SELECT sql FROM sqlite_master WHERE name "
+                                                        "= 'audit_log_append_only_delete'"));
+        shell(path, QStringLiteral("DROP TRIGGER audit_log_append_only_delete; DELETE FROM "
+                                   "audit_log WHERE id = %1 - 10; %2;")
+                        .arg(lastSealed, rule));
+        requireUnsound(path, QStringLiteral("is missing"));
+    }
+    SECTION("one row's values edited, triggers dropped") {
+        const QString path = copyOfDemo(dir);
+        shell(path, dropTriggers(path) +
+                        QStringLiteral("UPDATE audit_log SET new_values = '{}' WHERE id = %1 - 3;")
+                            .arg(lastSealed));
+        requireUnsound(path, QStringLiteral("changed or removed"));
+    }
+    SECTION("a signature stripped") {
+        const QString path = copyOfDemo(dir);
+        shell(path, dropTriggers(path, QStringLiteral("record_chain%")) +
+                        QStringLiteral("UPDATE record_chain SET signature = NULL, signing_key_id "
+                                       "= NULL WHERE id = 40;"));
+        requireUnsound(path, QStringLiteral("it is not signed"));
+    }
+}
+
 TEST_CASE("verify finds a changed rule by its definition", "[verify]") {
     QTemporaryDir dir;
     const QString path = copyOfDemo(dir);

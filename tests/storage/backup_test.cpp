@@ -38,7 +38,7 @@ TEST_CASE("backup and restore round-trip a workbook", "[backup]") {
         mw::storage::SessionRepository sessions(*workbook);
         sessions.create(s);
         sessions.submit(s.id, mwtest::at(2025, 3, 5));
-        sessions.approve(s.id, seed.reviewer.id, mwtest::at(2025, 3, 6));
+        sessions.approve(s.id, mwtest::signer(*workbook, seed.reviewer), mwtest::at(2025, 3, 6));
         sessionId = s.id;
         mw::storage::LabRepository(*workbook).save({"Before", "", std::nullopt});
         mw::storage::backupWorkbook(*workbook, backup); // online: the workbook stays open

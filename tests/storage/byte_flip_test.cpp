@@ -1,6 +1,7 @@
 // Random single-byte changes to copies of the demo workbook: each copy is refused, reported
-// unsound, or leaves the sealed records as they were. What verify does not seal yet (the audit
-// log, the register's own rows, drafts) may change unseen; the test names those tables.
+// unsound, or leaves the sealed records as they were. What no approval has sealed yet (audit rows
+// after the newest approval, the register's own rows, drafts) may change unseen; the test names
+// those tables.
 #include "storage/demo/demo_workbook.h"
 #include "storage/verification.h"
 #include "storage/workbook_error.h"

@@ -124,7 +124,8 @@ TEST_CASE("the due list: never calibrated first, then by due date, retired left 
         mw::CalibrationSession s = mwtest::draft(forIt, started);
         sessions.create(s);
         sessions.submit(s.id, started + std::chrono::hours{4});
-        sessions.approve(s.id, seed.reviewer.id, started + std::chrono::hours{6});
+        sessions.approve(s.id, mwtest::signer(*workbook, seed.reviewer),
+                         started + std::chrono::hours{6});
     };
     approve(seed.instrument.id, mwtest::at(2024, 1, 10));
     approve(seed.instrument.id, mwtest::at(2025, 1, 10)); // the later one counts

@@ -23,7 +23,8 @@ std::vector<std::int64_t> approveThree(mw::storage::Workbook& workbook, const mw
         mw::CalibrationSession s = mwtest::draft(seed, mwtest::at(2025, 2, day));
         sessions.create(s);
         sessions.submit(s.id, mwtest::at(2025, 2, day, 14));
-        sessions.approve(s.id, seed.reviewer.id, mwtest::at(2025, 2, day, 16));
+        sessions.approve(s.id, mwtest::signer(workbook, seed.reviewer),
+                         mwtest::at(2025, 2, day, 16));
         ids.push_back(s.id);
     }
     mw::CalibrationSession draft = mwtest::draft(seed, mwtest::at(2025, 2, 10));
@@ -177,7 +178,8 @@ TEST_CASE("a record is superseded exactly when an approved amendment supersedes 
             sessions.amend(ids[0], seed.technician.id,
                            QStringLiteral("Value copied wrongly at 6 V"), mwtest::at(2025, 2, 20));
         sessions.submit(amendmentId, mwtest::at(2025, 2, 20, 14));
-        sessions.approve(amendmentId, seed.reviewer.id, mwtest::at(2025, 2, 20, 16));
+        sessions.approve(amendmentId, mwtest::signer(*workbook, seed.reviewer),
+                         mwtest::at(2025, 2, 20, 16));
         const auto report = verifyWorkbook(*workbook);
         REQUIRE(report.sound());
         CHECK(report.chainLength == 4);

@@ -6,7 +6,7 @@
 #include "storage/audit_repository.h"
 #include "storage/frozen_schema.h"
 #include "storage/lab_repository.h"
-#include "storage/schema_v3.h"
+#include "storage/schema_v4.h"
 #include "storage/sqlite_dialect.h"
 #include "storage/verification.h"
 #include "storage/workbook_error.h"
@@ -96,10 +96,32 @@ TEST_CASE("the frozen SQL of versions 1 and 2 writes what the program shipped", 
     }
 }
 
+TEST_CASE("the frozen SQL of version 3 is what the program shipped", "[schema]") {
+    // workbook-v3.mwb was written by the last program with schema 3; an upgrade from version 2
+    // through the frozen SQL must give its schema, object for object, text for text.
+    mwtest::TempWorkbook temp;
+    const std::set<QString> shipped = schemaOf(copyOf(temp, "workbook-v3.mwb"));
+    const QString written = temp.dir.filePath(QStringLiteral("written-3.mwb"));
+    {
+        QSqlDatabase db = QSqlDatabase::addDatabase(QStringLiteral("QSQLITE"), "v3-writer");
+        db.setDatabaseName(written);
+        REQUIRE(db.open());
+        REQUIRE(mw::storage::schema::migrate(db, 3) == 3);
+        db.close();
+    }
+    QSqlDatabase::removeDatabase(QStringLiteral("v3-writer"));
+    CHECK(schemaOf(written) == shipped);
+    CHECK(mwtest::rawValues(written,
+                            "SELECT count(*) FROM pragma_table_info('reference_standards') "
+                            "WHERE name = 'calibrated_on'") == QStringList{QStringLiteral("0")});
+}
+
 TEST_CASE("workbooks of every earlier version upgrade and keep every record", "[schema]") {
     QTemporaryDir freshDir;
     const std::set<QString> fresh = schemaOf(freshWorkbook(freshDir));
-    for (const char* fixture : {"workbook-v1.mwb", "workbook-v2-early.mwb", "workbook-v2.mwb"}) {
+    for (const char* fixture :
+         {"workbook-v1.mwb", "workbook-v2-early.mwb", "workbook-v2.mwb", "workbook-v3.mwb"}) {
+        const bool version3 = QLatin1String(fixture) == QLatin1String("workbook-v3.mwb");
         CAPTURE(fixture);
         mwtest::TempWorkbook temp;
         const QString path = copyOf(temp, fixture);
@@ -116,13 +138,19 @@ TEST_CASE("workbooks of every earlier version upgrade and keep every record", "[
             CHECK(workbook.schemaVersion() == mw::storage::schema::kCurrentVersion);
             REQUIRE_FALSE(workbook.upgradeBackupPath().isEmpty());
             CHECK(QFileInfo::exists(workbook.upgradeBackupPath()));
-            // Every digest taken under the old version still verifies; their verdicts were made
-            // without copies of their inputs, so they are counted as not recorded.
+            // Every digest taken under the old version still verifies. Verdicts of version 2
+            // were made without copies of their inputs, so they are counted as not recorded;
+            // those of version 3 are recomputed. None of them was signed.
             const mw::storage::VerificationReport report = mw::storage::verifyWorkbook(workbook);
             CHECK(report.sound());
             CHECK(report.recordsChecked == chainBefore.size());
-            CHECK(report.verdictsChecked == 0);
-            CHECK(report.verdictsNotRecorded == int(sessionsBefore.size()) - 1); // one draft
+            const int decided = int(sessionsBefore.size()) - 1; // one draft
+            CHECK(report.verdictsChecked == (version3 ? decided : 0));
+            CHECK(report.verdictsNotRecorded == (version3 ? 0 : decided));
+            CHECK(report.signaturesChecked == 0);
+            CHECK(mwtest::rawValues(path, "SELECT chain_length FROM schema_upgrades WHERE "
+                                          "version = 4") ==
+                  QStringList{QString::number(chainBefore.size())});
         }
         // The same sessions, states, outcomes and chain (drafts lose the outcome they never had
         // a right to: it is computed at submission now).
@@ -193,7 +221,9 @@ TEST_CASE("a submission from before the copies is returned before it can be appr
     CHECK_FALSE(old.sealed);
     workbook.setActor(reviewer->id);
     try {
-        sessions.approve(old.id, reviewer->id, *old.submitted_at + std::chrono::hours(30));
+        sessions.approve(old.id,
+                         mwtest::signer(workbook, reviewer->id, QStringLiteral("demo-review")),
+                         *old.submitted_at + std::chrono::hours(30));
         FAIL("a submission without its sealed inputs was approved");
     } catch (const WorkbookError& error) {
         CHECK(error.kind() == WorkbookError::Kind::RuleViolation);
@@ -213,7 +243,11 @@ TEST_CASE("a submission from before the copies is returned before it can be appr
     REQUIRE(resubmitted->sealed);
     CHECK_FALSE(resubmitted->sealed->specs.empty());
     workbook.setActor(reviewer->id);
-    CHECK(sessions.approve(old.id, reviewer->id, back + std::chrono::hours(3)).size() == 64);
+    CHECK(sessions
+              .approve(old.id,
+                       mwtest::signer(workbook, reviewer->id, QStringLiteral("demo-review")),
+                       back + std::chrono::hours(3))
+              .size() == 64);
     const auto report = mw::storage::verifyWorkbook(workbook);
     CHECK(report.sound());
     CHECK(report.verdictsChecked == 1);
@@ -261,7 +295,7 @@ TEST_CASE("every column of every table is named in its audit and freeze triggers
     // escape them: the lists must match the tables exactly.
     QTemporaryDir dir;
     const QString path = freshWorkbook(dir);
-    for (const mw::storage::schema3::TableDefinition& table : mw::storage::schema3::tables()) {
+    for (const mw::storage::schema4::TableDefinition& table : mw::storage::schema4::tables()) {
         CAPTURE(table.name);
         QStringList listed;
         for (const char* column : table.columns) {
@@ -281,8 +315,13 @@ TEST_CASE("every column of every table is named in its audit and freeze triggers
         if (audit.isEmpty()) {
             continue; // the audit tables themselves
         }
+        // Secrets and binary keys stay out of the log (JSON holds no BLOB); their rows are
+        // never deleted and a key changes only by being retired.
+        const QStringList unaudited = {QStringLiteral("password_hash"),
+                                       QStringLiteral("sealed_secret"),
+                                       QStringLiteral("public_key"), QStringLiteral("signature")};
         for (const QString& column : listed) {
-            if (column != QLatin1String("password_hash")) {
+            if (!unaudited.contains(column)) {
                 CHECK(audit.front().contains(QStringLiteral("'%1', NEW.%1").arg(column)));
             }
         }
@@ -291,7 +330,7 @@ TEST_CASE("every column of every table is named in its audit and freeze triggers
                                                    "'sessions_approved_frozen'")
                                .front();
     for (const char* column :
-         mw::storage::schema3::table(QStringLiteral("calibration_sessions")).columns) {
+         mw::storage::schema4::table(QStringLiteral("calibration_sessions")).columns) {
         if (QLatin1String(column) != QLatin1String("state")) {
             CHECK(frozen.contains(QStringLiteral("OLD.%1 IS NEW.%1").arg(QLatin1String(column))));
         }

@@ -137,13 +137,15 @@ TEST_CASE("the review workflow: submit, return, reopen, approve, amend", "[sessi
 
     // The technician cannot approve their own work.
     try {
-        sessions.approve(session.id, seed.technician.id, mwtest::at(2025, 3, 8));
+        sessions.approve(session.id, mwtest::signer(*workbook, seed.technician),
+                         mwtest::at(2025, 3, 8));
         FAIL("self-approval accepted");
     } catch (const WorkbookError& error) {
         CHECK(error.kind() == WorkbookError::Kind::RuleViolation);
     }
     CHECK_FALSE(sessions.hasApprovedRecords(seed.instrument.id));
-    const QString digest = sessions.approve(session.id, seed.reviewer.id, mwtest::at(2025, 3, 8));
+    const QString digest = sessions.approve(session.id, mwtest::signer(*workbook, seed.reviewer),
+                                            mwtest::at(2025, 3, 8));
     CHECK(digest.size() == 64);
     CHECK(sessions.hasApprovedRecords(seed.instrument.id));
     const auto outcomes = sessions.latestApprovedOutcomes();
@@ -174,7 +176,7 @@ TEST_CASE("the review workflow: submit, return, reopen, approve, amend", "[sessi
     fixed.indicated = 4.01;
     sessions.putReading(amendment, fixed);
     sessions.submit(amendment, mwtest::at(2025, 4, 2));
-    sessions.approve(amendment, seed.admin.id, mwtest::at(2025, 4, 3));
+    sessions.approve(amendment, mwtest::signer(*workbook, seed.admin), mwtest::at(2025, 4, 3));
     CHECK(sessions.find(session.id)->state == SessionState::Superseded);
     CHECK(sessions.find(amendment)->state == SessionState::Approved);
     // An approved record is never amended twice in parallel, nor a superseded one at all.

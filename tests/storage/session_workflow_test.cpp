@@ -46,7 +46,9 @@ TEST_CASE("submission copies the inputs and stores the evaluator's outcome", "[w
     better.specs[0].percent_of_reading = 0.001;
     mw::storage::StandardRepository(*workbook).update(better);
     CHECK(sessions.find(session.id)->sealed == stored->sealed);
-    CHECK(sessions.approve(session.id, seed.reviewer.id, mwtest::at(2025, 3, 6)).size() == 64);
+    CHECK(sessions
+              .approve(session.id, mwtest::signer(*workbook, seed.reviewer), mwtest::at(2025, 3, 6))
+              .size() == 64);
     CHECK(mw::storage::verifyWorkbook(*workbook).sound());
 }
 
@@ -97,7 +99,8 @@ TEST_CASE("approval refuses an outcome that no longer follows from the inputs", 
     auto workbook = temp.open();
     REQUIRE_FALSE(workbook->isReadOnly());
     try {
-        SessionRepository(*workbook).approve(id, seed.reviewer.id, mwtest::at(2025, 3, 6));
+        SessionRepository(*workbook).approve(id, mwtest::signer(*workbook, seed.reviewer),
+                                             mwtest::at(2025, 3, 6));
         FAIL("approved an outcome the inputs do not give");
     } catch (const WorkbookError& error) {
         CHECK(error.kind() == WorkbookError::Kind::RuleViolation);
@@ -182,7 +185,7 @@ TEST_CASE("an amendment keeps the copies of the record it amends", "[workflow]")
     CalibrationSession session = mwtest::draft(seed);
     sessions.create(session);
     sessions.submit(session.id, mwtest::at(2025, 3, 5));
-    sessions.approve(session.id, seed.reviewer.id, mwtest::at(2025, 3, 6));
+    sessions.approve(session.id, mwtest::signer(*workbook, seed.reviewer), mwtest::at(2025, 3, 6));
     const auto original = sessions.find(session.id);
 
     // The standard is recalibrated with a new specification before the correction is made.
@@ -204,7 +207,7 @@ TEST_CASE("an amendment keeps the copies of the record it amends", "[workflow]")
     sessions.submit(amendment, mwtest::at(2025, 4, 2));
     // The record is corrected with the standard as it was that day, not as it is now.
     CHECK(sessions.find(amendment)->sealed == original->sealed);
-    sessions.approve(amendment, seed.reviewer.id, mwtest::at(2025, 4, 3));
+    sessions.approve(amendment, mwtest::signer(*workbook, seed.reviewer), mwtest::at(2025, 4, 3));
     const auto report = mw::storage::verifyWorkbook(*workbook);
     CHECK(report.sound());
     CHECK(report.verdictsChecked == 2);

@@ -40,7 +40,8 @@ struct Records {
         mw::CalibrationSession approved = mwtest::draft(seed, mwtest::at(2025, 3, 3));
         sessions.create(approved);
         sessions.submit(approved.id, mwtest::at(2025, 3, 3, 15));
-        sessions.approve(approved.id, seed.reviewer.id, mwtest::at(2025, 3, 4));
+        sessions.approve(approved.id, mwtest::signer(*workbook, seed.reviewer),
+                         mwtest::at(2025, 3, 4));
         approvedId = approved.id;
     }
     QString sql(const QString& statement) const { return rawExec(temp.path(), statement); }
@@ -320,7 +321,8 @@ TEST_CASE("recalibrating a standard: new sessions copy the new certificate, amen
                        QStringLiteral("Value copied wrongly at point 3"), mwtest::at(2025, 9, 3));
     CHECK(sessions.find(amendment)->standards.at(0).certificate_number == "CERT-2024-117");
     sessions.submit(amendment, mwtest::at(2025, 9, 3, 10));
-    sessions.approve(amendment, r.seed.reviewer.id, mwtest::at(2025, 9, 3, 12));
+    sessions.approve(amendment, mwtest::signer(workbook, r.seed.reviewer),
+                     mwtest::at(2025, 9, 3, 12));
     CHECK(sessions.find(r.approvedId)->state == mw::SessionState::Superseded);
 }
 

@@ -20,6 +20,7 @@
 #include <QTemporaryDir>
 
 #include <chrono>
+#include <map>
 #include <memory>
 
 namespace mwtest {
@@ -197,6 +198,34 @@ inline mw::CalibrationSession draft(const Seed& s, mw::Timestamp started = at(20
     c.resistor_checks = {{0, volts, "R1 multiplier", 198800.0, 198650.0, 0.1}};
     c.adjustments = {{0, started + hours{1}, "Zero set with the mechanical adjuster"}};
     return c;
+}
+
+// The approval key of user `userId`, opened with `password` (issued at its first use). Kept per
+// workbook file and user, since each opening costs an Argon2id derivation; a kept key no
+// longer in use in that file (retired, or another file at the same path) is opened again.
+inline const mw::storage::ApprovalSigner& signer(mw::storage::Workbook& workbook,
+                                                 std::int64_t userId, const QString& password) {
+    static std::map<std::pair<QString, std::int64_t>, mw::storage::ApprovalSigner> opened;
+    const auto key = std::make_pair(workbook.path(), userId);
+    const auto found = opened.find(key);
+    if (found != opened.end()) {
+        QSqlQuery q(workbook.database());
+        q.prepare(QStringLiteral("SELECT public_key FROM signing_keys WHERE id = ? AND retired_at "
+                                 "IS NULL"));
+        q.addBindValue(qint64(found->second.keyId));
+        if (q.exec() && q.next() && q.value(0).toByteArray() == found->second.publicKey) {
+            return found->second;
+        }
+        opened.erase(found);
+    }
+    auto signer = mw::storage::unlockApprovalKey(workbook, userId, password, at(2000, 1, 1));
+    return opened.emplace(key, std::move(signer)).first->second;
+}
+
+// The approval key of a user made by seed(), whose password is their login and "-pass".
+inline const mw::storage::ApprovalSigner& signer(mw::storage::Workbook& workbook,
+                                                 const mw::User& user) {
+    return signer(workbook, user.id, QString::fromStdString(user.login) + QStringLiteral("-pass"));
 }
 
 } // namespace mwtest

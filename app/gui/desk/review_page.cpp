@@ -247,10 +247,14 @@ bool ReviewPage::approve(const QString& password, QString* message) {
     }
     throttle_.recordSuccess();
     const std::int64_t id = *sessionId();
+    QString fingerprint;
     try {
-        const QString digest =
-            storage::SessionRepository(workbook).approve(id, reviewer.id, currentTime());
-        *message = digest;
+        const auto at = currentTime();
+        // The password also opens the reviewer's approval key (issued at their first approval).
+        const storage::ApprovalSigner key =
+            storage::unlockApprovalKey(workbook, reviewer.id, password, at);
+        fingerprint = storage::keyFingerprint(key.publicKey);
+        *message = storage::SessionRepository(workbook).approve(id, key, at);
     } catch (const std::exception& error) {
         *message = tr("Not approved: %1").arg(QString::fromUtf8(error.what()));
         return false;
@@ -258,10 +262,11 @@ bool ReviewPage::approve(const QString& password, QString* message) {
     emit workspace_.notifier()->sessionStateChanged(id);
     reload();
     openSession(id);
-    showVerdict(tr("✔ <b>Approved and sealed</b> by %1. Record digest (SHA-256, chained with the "
-                   "record approved before it): <tt>%2</tt>. <tt>meterwright verify</tt> "
-                   "recomputes it.")
-                    .arg(QString::fromStdString(reviewer.full_name).toHtmlEscaped(), *message));
+    showVerdict(tr("✔ <b>Approved, sealed and signed</b> by %1 (key %3). Record digest "
+                   "(SHA-256, chained with the record approved before it): <tt>%2</tt>. "
+                   "<tt>meterwright verify</tt> recomputes it and checks the signature.")
+                    .arg(QString::fromStdString(reviewer.full_name).toHtmlEscaped(), *message,
+                         fingerprint));
     return true;
 }
 

@@ -6,7 +6,7 @@
 
 #include <vector>
 
-namespace mw::storage::schema3 {
+namespace mw::storage::schema4 {
 
 struct TableDefinition {
     const char* name;
@@ -26,4 +26,4 @@ QStringList indexes();
 // The CREATE statement with its placeholders expanded into SQLite's checks.
 QString expand(const char* sql);
 
-} // namespace mw::storage::schema3
+} // namespace mw::storage::schema4

@@ -1,4 +1,4 @@
-// The tables and indexes of schema version 3, each table with its columns listed explicitly, so
+// The tables and indexes of schema version 4, each table with its columns listed explicitly, so
 // that the triggers built from those lists cover every column (a test holds the lists to the
 // tables). Tables are STRICT: SQLite refuses a value of the wrong type instead of storing it.
 //
@@ -6,7 +6,7 @@
 // workbook writes it, "2024-03-05T10:00:00+00:00" (or NULL), {date:c} a date "2024-03-05",
 // {finite:c} a finite number.
 // Times of one format compare as text: a session is submitted after it started, and so on.
-#include "storage/schema_v3.h"
+#include "storage/schema_v4.h"
 
 #include "storage/workbook_error.h"
 
@@ -14,7 +14,7 @@
 
 #include <stdexcept>
 
-namespace mw::storage::schema3 {
+namespace mw::storage::schema4 {
 namespace {
 
 const char* const kClassSeries = "(0.05, 0.1, 0.2, 0.3, 0.5, 1, 1.5, 2, 2.5, 3, 5)";
@@ -304,14 +304,37 @@ std::vector<TableDefinition> makeTables() {
         noted_at TEXT NOT NULL CHECK ({time:noted_at}),
         note_text TEXT NOT NULL CHECK (length(note_text) > 0)) STRICT)",
                  {"id", "session_id", "noted_at", "note_text"}});
+    // A reviewer's approval keys: the public key in the clear, the secret key sealed under a
+    // key derived from their password (storage/approval_key.h). A key is retired, never
+    // deleted, when its holder's password changes, so that what it signed stays verifiable.
+    t.push_back({"signing_keys",
+                 R"(CREATE TABLE signing_keys (
+        id INTEGER PRIMARY KEY,
+        user_id INTEGER NOT NULL REFERENCES users (id),
+        public_key BLOB NOT NULL UNIQUE CHECK (length(public_key) = 32),
+        sealed_secret BLOB NOT NULL CHECK (length(sealed_secret) > 64),
+        created_at TEXT NOT NULL CHECK ({time:created_at}),
+        retired_at TEXT CHECK (retired_at IS NULL OR ({time:retired_at} AND
+                                                     retired_at >= created_at))) STRICT)",
+                 {"id", "user_id", "public_key", "sealed_secret", "created_at", "retired_at"}});
+    // Each approval seals the audit log up to its newest row (a running digest over every row
+    // in id order) and is signed by its reviewer's key over the record's digest and that seal.
+    // Entries made before version 4 carry neither; schema_upgrades says how many there are.
     t.push_back({"record_chain",
                  R"(CREATE TABLE record_chain (
         id INTEGER PRIMARY KEY,
         session_id INTEGER NOT NULL UNIQUE REFERENCES calibration_sessions (id),
         previous_digest TEXT NOT NULL,
         digest TEXT NOT NULL UNIQUE CHECK (length(digest) = 64),
-        recorded_at TEXT NOT NULL CHECK ({time:recorded_at})) STRICT)",
-                 {"id", "session_id", "previous_digest", "digest", "recorded_at"}});
+        recorded_at TEXT NOT NULL CHECK ({time:recorded_at}),
+        audit_through_id INTEGER CHECK (audit_through_id IS NULL OR audit_through_id > 0),
+        audit_digest TEXT CHECK (audit_digest IS NULL OR length(audit_digest) = 64),
+        signing_key_id INTEGER REFERENCES signing_keys (id),
+        signature BLOB CHECK (signature IS NULL OR length(signature) = 64),
+        CHECK ((audit_through_id IS NULL) = (audit_digest IS NULL)),
+        CHECK ((signing_key_id IS NULL) = (signature IS NULL))) STRICT)",
+                 {"id", "session_id", "previous_digest", "digest", "recorded_at",
+                  "audit_through_id", "audit_digest", "signing_key_id", "signature"}});
     t.push_back(
         {"audit_log",
          R"(CREATE TABLE audit_log (
@@ -331,6 +354,14 @@ std::vector<TableDefinition> makeTables() {
         id INTEGER PRIMARY KEY CHECK (id = 1),
         user_id INTEGER REFERENCES users (id)) STRICT)",
                  {"id", "user_id"}});
+    // When the workbook reached each version from 4 on, and how long its chain of approved
+    // records was then: the entries made before signing began are those of version 3.
+    t.push_back({"schema_upgrades",
+                 R"(CREATE TABLE schema_upgrades (
+        version INTEGER PRIMARY KEY CHECK (version >= 4),
+        reached_at TEXT NOT NULL CHECK ({time:reached_at}),
+        chain_length INTEGER NOT NULL CHECK (chain_length >= 0)) STRICT)",
+                 {"version", "reached_at", "chain_length"}});
     return t;
 }
 
@@ -404,7 +435,10 @@ QStringList indexes() {
         QStringLiteral("CREATE INDEX resistor_checks_by_session ON resistor_checks (session_id)"),
         QStringLiteral("CREATE INDEX adjustment_notes_by_session ON adjustment_notes (session_id)"),
         QStringLiteral("CREATE INDEX audit_log_by_row ON audit_log (table_name, row_id)"),
+        // One key in use per person.
+        QStringLiteral("CREATE UNIQUE INDEX signing_keys_in_use ON signing_keys (user_id) "
+                       "WHERE retired_at IS NULL"),
     };
 }
 
-} // namespace mw::storage::schema3
+} // namespace mw::storage::schema4
