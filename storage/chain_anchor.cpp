@@ -182,11 +182,19 @@ ChainHead chainHead(const Workbook& workbook) {
     return head;
 }
 
-StoredChain readChainFile(const QString& path) {
+namespace {
+
+OpenOptions asItIs() {
     OpenOptions options; // the options verifyWorkbookFile opens with: read-only, as it is
     options.readOnly = true;
     options.acceptOlderSchema = true;
-    const Workbook workbook(path, options);
+    return options;
+}
+
+} // namespace
+
+StoredChain readChainFile(const QString& path) {
+    const Workbook workbook(path, asItIs());
     StoredChain stored;
     stored.schemaVersion = workbook.schemaVersion();
     stored.labName = labNameOf(workbook.database());
@@ -195,7 +203,10 @@ StoredChain readChainFile(const QString& path) {
 }
 
 ChainHead chainHeadOfFile(const QString& path) {
-    return headOf(readChainFile(path).entries);
+    OpenOptions options = asItIs();
+    options.quickCheck = false;
+    const Workbook workbook(path, options);
+    return chainHead(workbook);
 }
 
 AnchorComparison compareWorkbookWithCopy(const QString& workbookPath, const QString& copyPath) {

@@ -73,7 +73,8 @@ ChainHead chainHead(const Workbook& workbook);
 // version is not upgraded, nothing is written) and reads its chain. Throws WorkbookError when
 // the file cannot be opened as a workbook.
 StoredChain readChainFile(const QString& path);
-// The head of the chain of the workbook file at `path`, opened as readChainFile does.
+// The head of the chain of the workbook file at `path`, opened read-only and as it is like
+// readChainFile, without its quick_check: for a copy just written, read back at once.
 ChainHead chainHeadOfFile(const QString& path);
 
 // Reads both files and compares their chains. Throws WorkbookError (BadInput) naming the copy
