@@ -3,6 +3,7 @@
 
 #include "app/cli/cli_support.h"
 #include "storage/backup.h"
+#include "storage/chain_anchor.h"
 #include "storage/workbook.h"
 #include "storage/workbook_error.h"
 
@@ -72,13 +73,35 @@ int runBackup(const QStringList& arguments) {
     } catch (const storage::WorkbookError& error) {
         rethrowAsUsage(error, QStringLiteral("cannot back up %1").arg(positional.at(0)));
     }
+    // The chain head as the copy holds it (read back from the copy, not the workbook, which
+    // others may have added to since): kept with the backup, it anchors the chain.
+    storage::ChainHead head;
+    if (!written.isEmpty()) {
+        try {
+            head = storage::chainHeadOfFile(written);
+        } catch (const storage::WorkbookError& error) {
+            rethrowAsUsage(error, QStringLiteral("backup written to %1, but it cannot be read "
+                                                 "back")
+                                      .arg(written));
+        }
+    }
     if (parser.isSet(QStringLiteral("json"))) {
-        printJson(QJsonObject{
+        QJsonObject object{
             {QStringLiteral("workbook"), positional.at(0)},
-            {QStringLiteral("backup"), written.isEmpty() ? QJsonValue() : QJsonValue(written)}});
+            {QStringLiteral("backup"), written.isEmpty() ? QJsonValue() : QJsonValue(written)}};
+        if (!written.isEmpty()) {
+            object.insert(QStringLiteral("chain_head"),
+                          QJsonObject{{QStringLiteral("records"), head.length},
+                                      {QStringLiteral("digest"), head.digest}});
+        }
+        printJson(object);
+    } else if (written.isEmpty()) {
+        printLine(QStringLiteral("no automatic backup was due"));
     } else {
-        printLine(written.isEmpty() ? QStringLiteral("no automatic backup was due")
-                                    : QStringLiteral("backup written: %1").arg(written));
+        printLine(QStringLiteral("backup written: %1").arg(written));
+        printLine(QStringLiteral("chain head of the backup: %1 records, last digest %2")
+                      .arg(head.length)
+                      .arg(head.length == 0 ? QStringLiteral("(none)") : head.digest));
     }
     return 0;
 }

@@ -9,6 +9,7 @@
 #include "app/cli/repair_command.h"
 #include "app/cli/session_commands.h"
 #include "app/cli/workbook_access.h"
+#include "storage/chain_anchor.h"
 #include "storage/record_digest.h"
 #include "storage/verification.h"
 #include "storage/workbook.h"
@@ -16,6 +17,8 @@
 
 #include <QJsonArray>
 #include <QJsonObject>
+
+#include <optional>
 
 namespace mw::cli {
 namespace {
@@ -28,7 +31,44 @@ QString oneLine(QString text) {
     return text.simplified();
 }
 
-void printReport(const storage::VerificationReport& report, const QString& path, bool json) {
+// The comparison with an older copy (verify --against), when one was asked for.
+struct CopyComparison {
+    QString copyPath;
+    storage::AnchorComparison result;
+};
+
+QString anchorLine(const CopyComparison& compared) {
+    const storage::AnchorComparison& r = compared.result;
+    if (!r.holds()) {
+        return QStringLiteral("compared with %1: %2 of its %3 records unchanged, then a record "
+                              "removed or changed")
+            .arg(compared.copyPath)
+            .arg(r.unchanged)
+            .arg(r.copyLength);
+    }
+    return QStringLiteral("compared with %1: all %2 of its records unchanged, %3 added since")
+        .arg(compared.copyPath)
+        .arg(r.copyLength)
+        .arg(r.addedSince);
+}
+
+QJsonObject anchorJson(const CopyComparison& compared) {
+    const storage::AnchorComparison& r = compared.result;
+    QJsonObject object{
+        {QStringLiteral("copy"), compared.copyPath},    {QStringLiteral("holds"), r.holds()},
+        {QStringLiteral("copy_records"), r.copyLength}, {QStringLiteral("unchanged"), r.unchanged},
+        {QStringLiteral("added_since"), r.addedSince},
+    };
+    if (r.firstDifference) {
+        object.insert(QStringLiteral("first_difference"), *r.firstDifference);
+        object.insert(QStringLiteral("first_difference_session"),
+                      qint64(r.firstDifferenceSessionId));
+    }
+    return object;
+}
+
+void printReport(const storage::VerificationReport& report, const QString& path,
+                 const std::optional<CopyComparison>& compared, bool json) {
     if (json) {
         QJsonObject object{
             {QStringLiteral("workbook"), path},
@@ -47,6 +87,9 @@ void printReport(const storage::VerificationReport& report, const QString& path,
             object.insert(QStringLiteral("first_mismatch"), *report.firstMismatch);
             object.insert(QStringLiteral("first_mismatch_session"),
                           qint64(report.firstMismatchSessionId.value_or(0)));
+        }
+        if (compared) {
+            object.insert(QStringLiteral("against"), anchorJson(*compared));
         }
         object.insert(QStringLiteral("problems"), QJsonArray::fromStringList(report.problems));
         printJson(object);
@@ -69,6 +112,9 @@ void printReport(const storage::VerificationReport& report, const QString& path,
                   .arg(report.chainLength)
                   .arg(report.chainLength == 0 ? QStringLiteral("(none)")
                                                : storage::shortDigest(report.chainHeadDigest)));
+    if (compared) {
+        printLine(anchorLine(*compared));
+    }
     if (report.firstMismatch) {
         printLine(QStringLiteral("FIRST MISMATCH: %1").arg(oneLine(*report.firstMismatch)));
     }
@@ -84,6 +130,22 @@ void printReport(const storage::VerificationReport& report, const QString& path,
                              : QStringLiteral("result: NOT sound"));
 }
 
+CopyComparison compareAgainst(const QString& path, const QString& copyPath) {
+    if (copyPath.isEmpty()) {
+        throw UsageError(QStringLiteral("--against needs the file of an older copy"));
+    }
+    try {
+        return {copyPath, storage::compareWorkbookWithCopy(path, copyPath)};
+    } catch (const storage::WorkbookError& error) {
+        using Kind = storage::WorkbookError::Kind;
+        if (error.kind() == Kind::Internal || error.kind() == Kind::Sql) {
+            throw;
+        }
+        throw UsageError(QStringLiteral("cannot compare with the copy: ") +
+                         oneLine(error.message()));
+    }
+}
+
 int runVerify(const QStringList& arguments) {
     QCommandLineParser parser;
     parser.setApplicationDescription(QStringLiteral(
@@ -91,9 +153,15 @@ int runVerify(const QStringList& arguments) {
         "foreign keys, every table, index and trigger against the definitions of the workbook's "
         "version, every stored value against its column's type and vocabulary, the digest chain "
         "of approved records, and every stored outcome against the session evaluator on the "
-        "inputs the session was sealed with. Exit 0 when sound, 1 naming what failed, 2 when "
-        "the file cannot be opened as a workbook."));
+        "inputs the session was sealed with. With --against, every record of an older copy "
+        "(a backup) must still be in the chain, at its position, with its digest. Exit 0 when "
+        "sound, 1 naming what failed, 2 when a file cannot be opened as a workbook."));
     parser.addPositionalArgument(QStringLiteral("WORKBOOK"), QStringLiteral("the workbook file"));
+    parser.addOption({QStringLiteral("against"),
+                      QStringLiteral("Compare the chain of approved records with COPY, an older "
+                                     "copy of the workbook: finds records removed or the chain "
+                                     "recomputed since."),
+                      QStringLiteral("COPY")});
     const QString commandLine = QStringLiteral("verify");
     parseOptions(parser, commandLine, arguments);
     if (helpRequested(parser, commandLine)) {
@@ -110,7 +178,14 @@ int runVerify(const QStringList& arguments) {
         }
         throw UsageError(QStringLiteral("cannot open the workbook: ") + oneLine(error.message()));
     }
-    printReport(report, path, parser.isSet(QStringLiteral("json")));
+    std::optional<CopyComparison> compared;
+    if (parser.isSet(QStringLiteral("against"))) {
+        compared = compareAgainst(path, parser.value(QStringLiteral("against")));
+        if (const auto& difference = compared->result.firstDifference) {
+            report.note(*difference, compared->result.firstDifferenceSessionId);
+        }
+    }
+    printReport(report, path, compared, parser.isSet(QStringLiteral("json")));
     return report.sound() ? 0 : kCheckFailed;
 }
 

@@ -16,6 +16,8 @@
 #include "app/gui/sign_in_dialog.h"
 #include "app/gui/workspace.h"
 #include "storage/backup.h"
+#include "storage/chain_anchor.h"
+#include "storage/record_digest.h"
 #include "storage/workbook.h"
 #include "storage/workbook_error.h"
 
@@ -410,7 +412,15 @@ void MainWindow::backUpNow() {
     }
     try {
         storage::backupWorkbook(*workspace_->workbook(), target);
-        report(tr("Backup written to %1").arg(target));
+        // The head the copy holds, read back from it: noted with the backup, it anchors the
+        // chain (meterwright verify --against).
+        const storage::ChainHead head = storage::chainHeadOfFile(target);
+        report(head.length == 0
+                   ? tr("Backup written to %1 (no approved records yet)").arg(target)
+                   : tr("Backup written to %1 (record chain: %2 approved records, head %3)")
+                         .arg(target)
+                         .arg(head.length)
+                         .arg(storage::shortDigest(head.digest)));
     } catch (const std::exception& failure) {
         QMessageBox::warning(this, tr("Backup failed"), QString::fromUtf8(failure.what()));
     }

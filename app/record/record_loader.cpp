@@ -2,6 +2,7 @@
 #include "app/record/record_loader.h"
 
 #include "core/history/instrument_history.h"
+#include "storage/chain_anchor.h"
 #include "storage/instrument_repository.h"
 #include "storage/lab_repository.h"
 #include "storage/session_repository.h"
@@ -42,6 +43,9 @@ std::optional<RecordSource> RecordLoader::record(std::int64_t sessionId,
     source.standards = standards_;
     source.users = users_;
     source.printedAt = printedAt;
+    // Read at each printing, not once per loader: the head of the moment the record is printed.
+    const storage::ChainHead head = storage::chainHead(workbook_);
+    source.chainAtPrinting = ChainAtPrinting{head.length, head.digest.toStdString()};
     if (session->state == SessionState::Superseded) {
         // The amendment that replaced it, approved or not yet: the banner points to it.
         for (const CalibrationSession& later : sessions.historyOf(item->id)) {

@@ -271,6 +271,15 @@ void addClosing(const RecordFacts& facts, Document& document) {
         document.blocks.push_back(
             Paragraph{"No digest: a record is sealed into the digest chain when it is approved."});
     }
+    if (const auto& chain = source.chainAtPrinting) {
+        // The short form people compare, as verify prints it.
+        const std::string head =
+            chain->records == 0 ? std::string("none") : "head " + chain->headDigest.substr(0, 16);
+        document.blocks.push_back(FieldList{{
+            {"Record chain at printing",
+             std::to_string(chain->records) + " approved records, " + head},
+        }});
+    }
     document.blocks.push_back(
         Paragraph{"The results relate only to the item calibrated, in the condition described "
                   "above, at the time of calibration. This record may be reproduced only in "

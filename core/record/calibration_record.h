@@ -25,6 +25,13 @@ struct Successor {
     std::optional<Timestamp> approvedAt;
 };
 
+// The workbook's chain of approved records when a record is printed: a later look at the
+// workbook must still hold this head (or a longer chain through it).
+struct ChainAtPrinting {
+    int records = 0;
+    std::string headDigest; // empty for an empty chain
+};
+
 // Everything a record is printed from; storage loads it, core turns it into the document.
 struct RecordSource {
     std::optional<Lab> lab; // nullopt while the laboratory has not been described
@@ -39,6 +46,7 @@ struct RecordSource {
     // approvals; printed beside the approval when present.
     std::optional<std::string> signerKeyFingerprint;
     Timestamp printedAt{}; // for the draft notice
+    std::optional<ChainAtPrinting> chainAtPrinting;
 };
 
 // "CFM-201-00066": the asset tag and the session number, unique within a workbook (each

@@ -8,6 +8,8 @@
 #include <QDir>
 #include <QFile>
 #include <QFileInfo>
+#include <QJsonDocument>
+#include <QJsonObject>
 #include <QSqlDatabase>
 #include <QSqlQuery>
 #include <QTemporaryDir>
@@ -37,6 +39,15 @@ TEST_CASE("backup writes a sound copy and refuses to overwrite") {
     INFO(written.err.toStdString());
     REQUIRE(written.exitCode == 0);
     CHECK(runMeterwright({QStringLiteral("verify"), copy}).exitCode == 0);
+    // The chain head the copy holds, in full, as verify reads it from the copy.
+    const QJsonObject head = mwtest::runJson({QStringLiteral("verify"), copy})
+                                 .value(QStringLiteral("chain_head"))
+                                 .toObject();
+    CHECK(head.value(QStringLiteral("digest")).toString().size() == 64);
+    CHECK(written.outText().contains(
+        QStringLiteral("chain head of the backup: %1 records, last digest %2")
+            .arg(head.value(QStringLiteral("records")).toInt())
+            .arg(head.value(QStringLiteral("digest")).toString())));
 
     const QByteArray before = [&] {
         QFile file(copy);
@@ -57,6 +68,10 @@ TEST_CASE("automatic backup is written once a day into the folder beside the wor
                                        workbook, QStringLiteral("--json")});
     REQUIRE(first.exitCode == 0);
     CHECK(first.outText().contains(QStringLiteral("shop.mwb.backups")));
+    const QJsonObject firstHead =
+        QJsonDocument::fromJson(first.out).object().value(QStringLiteral("chain_head")).toObject();
+    CHECK(firstHead.value(QStringLiteral("records")).toInt() > 0);
+    CHECK(firstHead.value(QStringLiteral("digest")).toString().size() == 64);
     const auto second =
         runMeterwright({QStringLiteral("backup"), QStringLiteral("--automatic"), workbook});
     REQUIRE(second.exitCode == 0);

@@ -7,21 +7,29 @@
 #include "app/gui/safety_notice.h"
 #include "app/gui/workspace.h"
 #include "storage/backup.h"
+#include "storage/chain_anchor.h"
 #include "storage/instrument_repository.h"
 #include "storage/workbook.h"
+#include "support/demo_window.h"
 
 #include <catch2/catch.hpp>
 
 #include <QAbstractItemModelTester>
+#include <QApplication>
 #include <QCoreApplication>
 #include <QFile>
+#include <QFileDialog>
+#include <QFileInfo>
 #include <QLabel>
+#include <QLineEdit>
 #include <QMenuBar>
 #include <QSqlDatabase>
 #include <QSqlQuery>
 #include <QStatusBar>
 #include <QTableView>
 #include <QTemporaryDir>
+#include <QTest>
+#include <QTimer>
 
 using mw::gui::MainWindow;
 
@@ -174,4 +182,34 @@ TEST_CASE("a workbook the window cannot read is refused with the reason, the win
     CHECK(window.workbook() == nullptr);
     CHECK(window.isVisible());
     CHECK(window.instrumentModel()->rowCount() == 0);
+}
+
+TEST_CASE("Back up now names the chain head of the copy it wrote") {
+    mwtest::DemoWindow lab("morgan", "demo-admin");
+    const QString target = lab.dir.filePath(QStringLiteral("kept.meterwright"));
+    // The save dialog answered as a person does: the proposed name replaced, Enter.
+    QTimer::singleShot(0, [&] {
+        auto* dialog = qobject_cast<QFileDialog*>(QApplication::activeModalWidget());
+        REQUIRE(dialog != nullptr);
+        auto* name = dialog->findChild<QLineEdit*>(QStringLiteral("fileNameEdit"));
+        REQUIRE(name != nullptr);
+        QTest::keyClick(name, Qt::Key_A, Qt::ControlModifier);
+        QTest::keyClicks(name, QFileInfo(target).fileName()); // the proposed name's folder
+        QTest::keyClick(name, Qt::Key_Return);
+    });
+    // A dialog still open later is closed with Escape, so that a failure does not hang.
+    QTimer::singleShot(20000, [] {
+        if (QWidget* open = QApplication::activeModalWidget()) {
+            QTest::keyClick(open, Qt::Key_Escape);
+        }
+    });
+    lab.window.backUpNow();
+    REQUIRE(QFile::exists(target));
+    const mw::storage::ChainHead head = mw::storage::chainHeadOfFile(target);
+    REQUIRE(head.length > 0);
+    CHECK(lab.window.statusBar()->currentMessage() ==
+          QStringLiteral("Backup written to %1 (record chain: %2 approved records, head %3)")
+              .arg(target)
+              .arg(head.length)
+              .arg(head.digest.left(16)));
 }

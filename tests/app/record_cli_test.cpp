@@ -295,6 +295,10 @@ TEST_CASE("the digest on the page is the one verify recomputes") {
     REQUIRE(digest.size() == 64);
     const QString text = mwtest::pdfText(recordOf(dir, idOf(latestApproved())));
     CHECK(text.contains(QStringLiteral("Digest (SHA-256) ") + digest));
+    // The chain as it stood at printing: the same head, shortened as verify prints it.
+    CHECK(text.contains(QStringLiteral("Record chain at printing %1 approved records, head %2")
+                            .arg(head.value(QStringLiteral("records")).toInt())
+                            .arg(digest.left(16))));
 }
 
 TEST_CASE("record by instrument, several at once, and refusals that write nothing") {

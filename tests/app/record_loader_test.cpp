@@ -27,6 +27,11 @@ TEST_CASE("a record's source holds the session, its instrument, lab, standards a
     CHECK_FALSE(source->successor);
     CHECK_FALSE(source->signerKeyFingerprint); // the workbook keeps no signed approvals yet
     CHECK_FALSE(source->session.digest.empty());
+    // The chain as it stands now, whatever record is printed: record 1 is its first entry.
+    REQUIRE(source->chainAtPrinting);
+    CHECK(source->chainAtPrinting->records == 109);
+    CHECK(source->chainAtPrinting->headDigest.size() == 64);
+    CHECK(source->chainAtPrinting->headDigest != source->session.digest);
     CHECK_FALSE(loader.record(99999, printTime()));
 }
 

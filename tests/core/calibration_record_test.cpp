@@ -201,6 +201,16 @@ TEST_CASE("the signing key is printed only when the approval was signed") {
     CHECK_THAT(textOf(source), Contains("Approval signed with key: SHA256:demo-key-fingerprint"));
 }
 
+TEST_CASE("the chain head at printing is printed, shortened, when it is known") {
+    RecordSource source = sourceFor(mwtest::fixtureCalibration(47, 0, 0.05));
+    CHECK_THAT(textOf(source), !Contains("Record chain at printing"));
+    source.chainAtPrinting = ChainAtPrinting{12, "0123456789abcdef" + std::string(48, 'e')};
+    CHECK_THAT(textOf(source),
+               Contains("Record chain at printing: 12 approved records, head 0123456789abcdef\n"));
+    source.chainAtPrinting = ChainAtPrinting{};
+    CHECK_THAT(textOf(source), Contains("Record chain at printing: 0 approved records, none"));
+}
+
 TEST_CASE("record identifiers and the session they must belong to") {
     CHECK(recordIdentifier(mwtest::fixtureMeter(), 7) == "DEMO-1-00007");
     CHECK(recordIdentifier(mwtest::fixtureMeter(), 1234567) == "DEMO-1-1234567");
