@@ -364,6 +364,11 @@ TEST_CASE("calc multiplier, indication and waveform refuse results beyond a doub
         args({"indication", "--rectifier", "none", "--ifs", "1mA", "--rm", "100", "--rs", "9.9k",
               "--range", "10V", "--input", "5V", "--rsh", "1e308"}),
         "the movement current cannot be computed from the values of --ifs");
+    // A movement of 1e-160 A: the real diodes' circuit solve cannot settle (it was an internal
+    // error, exit code 3).
+    requireRefusedInBothFormats(args({"multiplier", "--rectifier", "bridge", "--ifs", "1e-160",
+                                      "--rm", "100", "--range", "10V"}),
+                                "the multiplier cannot be computed from the values of --ifs");
     // Samples whose squares overflow: the true rms is beyond a double.
     QTemporaryDir dir;
     const QString samples = fixture(dir, "huge.csv", "1e200\n-1e200\n");
