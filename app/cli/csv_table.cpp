@@ -9,6 +9,7 @@
 #include <cerrno>
 #include <cstring>
 #include <fcntl.h>
+#include <optional>
 #include <sys/stat.h>
 #include <unistd.h>
 
@@ -106,53 +107,74 @@ void openRegularFile(QFile& file, const QString& path, const QString& option,
     }
 }
 
+// One line as read (its LF included, if it has one) turned into a data line, or nothing for a
+// blank line or a comment; UsageError for a CR that ends no line.
+std::optional<CsvLine> dataLine(const QByteArray& raw, int number, const QString& shown) {
+    QString text = QString::fromUtf8(raw);
+    if (text.endsWith(QLatin1Char('\n'))) {
+        text.chop(1);
+    } else if (number == 1 && text.contains(QLatin1Char('\r'))) {
+        // A whole file without LF: its CRs are line ends of their own.
+        throw UsageError(QStringLiteral("%1: lines end with CR only (old Mac line ends); save the "
+                                        "file with LF or CRLF line ends")
+                             .arg(shown));
+    }
+    if (text.endsWith(QLatin1Char('\r'))) {
+        text.chop(1); // CRLF line end
+    }
+    const qsizetype cr = text.indexOf(QLatin1Char('\r'));
+    if (cr >= 0) {
+        throw UsageError(QStringLiteral("%1 line %2: a carriage return (CR) at character %3 "
+                                        "inside the line; lines end with LF or CRLF")
+                             .arg(shown, QString::number(number), QString::number(cr + 1)));
+    }
+    if (number == 1 && text.startsWith(QChar(0xFEFF))) {
+        text.remove(0, 1); // the byte-order mark spreadsheets write before UTF-8
+    }
+    const QString trimmed = text.trimmed();
+    if (trimmed.isEmpty() || trimmed.startsWith(QLatin1Char('#'))) {
+        return std::nullopt;
+    }
+    return CsvLine{number, text};
+}
+
 } // namespace
 
 std::vector<CsvLine> readDataLines(const QString& path, const QString& option) {
     const QString shown = shownPath(path);
     QFile file;
     openRegularFile(file, path, option, shown);
-    // Line by line, never more than the limit and one byte past it in all: memory stays bounded
-    // by the limit even if the file grows while it is read.
+    // In blocks, each line taken as soon as its LF arrives, never more than the limit and one
+    // block past it in all: memory stays bounded even if the file grows while it is read.
+    constexpr qint64 kBlockBytes = 64 * 1024;
     std::vector<CsvLine> lines;
+    QByteArray pending; // the start of a line whose LF has not come yet
     qint64 bytesRead = 0;
-    for (int number = 1;; ++number) {
-        // At least 2, so that a read of "at most maxSize - 1 bytes" still moves on.
-        const QByteArray raw = file.readLine(kMaxDataFileBytes + 2 - bytesRead);
-        if (raw.isEmpty()) {
-            break; // the end of the file; a newline after the last line starts no other one
+    int number = 0;
+    const auto take = [&](const QByteArray& raw) {
+        if (std::optional<CsvLine> line = dataLine(raw, ++number, shown)) {
+            lines.push_back(std::move(*line));
         }
-        bytesRead += raw.size();
+    };
+    for (;;) {
+        const QByteArray block = file.read(kBlockBytes);
+        if (block.isEmpty()) {
+            break;
+        }
+        bytesRead += block.size();
         if (bytesRead > kMaxDataFileBytes) {
             throw UsageError(tooLarge(option, shown)); // it grew while it was read
         }
-        QString text = QString::fromUtf8(raw);
-        const bool lineEnd = text.endsWith(QLatin1Char('\n'));
-        if (lineEnd) {
-            text.chop(1);
-        } else if (number == 1 && text.contains(QLatin1Char('\r'))) {
-            // A whole file without LF: its CRs are line ends of their own.
-            throw UsageError(QStringLiteral("%1: lines end with CR only (old Mac line ends); save "
-                                            "the file with LF or CRLF line ends")
-                                 .arg(shown));
+        pending += block;
+        qsizetype start = 0;
+        for (qsizetype end = pending.indexOf('\n'); end >= 0; end = pending.indexOf('\n', start)) {
+            take(pending.mid(start, end + 1 - start));
+            start = end + 1;
         }
-        if (text.endsWith(QLatin1Char('\r'))) {
-            text.chop(1); // CRLF line end
-        }
-        const qsizetype cr = text.indexOf(QLatin1Char('\r'));
-        if (cr >= 0) {
-            throw UsageError(QStringLiteral("%1 line %2: a carriage return (CR) at character %3 "
-                                            "inside the line; lines end with LF or CRLF")
-                                 .arg(shown, QString::number(number), QString::number(cr + 1)));
-        }
-        if (number == 1 && text.startsWith(QChar(0xFEFF))) {
-            text.remove(0, 1); // the byte-order mark spreadsheets write before UTF-8
-        }
-        const QString trimmed = text.trimmed();
-        if (trimmed.isEmpty() || trimmed.startsWith(QLatin1Char('#'))) {
-            continue;
-        }
-        lines.push_back({number, text});
+        pending.remove(0, start);
+    }
+    if (!pending.isEmpty()) {
+        take(pending); // the last line, without LF; a LF after the last line starts no other
     }
     return lines;
 }
