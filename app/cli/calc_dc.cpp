@@ -1,4 +1,6 @@
-// `meterwright calc shunt|ayrton|temperature|eseries`: DC range design from the command line.
+// `meterwright calc shunt|ayrton|temperature|eseries`: DC range design from the command line
+// (calc eseries lives in calc_eseries.cpp).
+#include "app/cli/calc_eseries.h"
 #include "app/cli/cli_support.h"
 #include "app/cli/command_table.h"
 #include "core/circuits/ammeter.h"
@@ -52,7 +54,7 @@ std::vector<double> currentList(const QCommandLineParser& parser, const QString&
             throw UsageError(QStringLiteral("option --%1, item %2 \"%3\": %4")
                                  .arg(option)
                                  .arg(i + 1)
-                                 .arg(items[i], QString::fromStdString(error.what())));
+                                 .arg(excerpt(items[i]), QString::fromStdString(error.what())));
         }
     }
     return values;
@@ -125,7 +127,9 @@ int runShunt(const QStringList& arguments) {
                    {"meter resistance", ohms_meter},
                    {"burden", kOverrangeFactor * burden_V},
                    {"dissipation at 120 %", heat.watts_overrange},
-                   {"span drift", drift}});
+                   {"power rating to choose", heat.watts_overrange / kTypicalDerating},
+                   {"span drift", 100.0 * drift}},
+                  QStringLiteral("--ifs, --rm, --swamp and --range"));
     const QStringList cautions = shuntCautions(heat, circuit, classIndex);
     if (parser.isSet(QStringLiteral("json"))) {
         printJson({{QStringLiteral("shunt_ohm"), jsonNumber(ohms_shunt)},
@@ -183,11 +187,13 @@ int runAyrton(const QStringList& arguments) {
     }
     const Movement movement = movementFrom(parser);
     const AyrtonShunt shunt = ayrtonShunt(movement, currentList(parser, QStringLiteral("ranges")));
-    requireFinite({{"whole string", shunt.total_ohm}});
+    const QString inputs = QStringLiteral("--ifs, --rm and --ranges");
+    requireFinite({{"whole string", shunt.total_ohm}}, inputs);
     for (std::size_t k = 0; k < shunt.amps_ranges.size(); ++k) {
         requireFinite({{"tap resistance", shunt.taps_ohm[k]},
                        {"section resistance", shunt.sections_ohm[k]},
-                       {"burden", shunt.burden_V[k]}});
+                       {"burden", shunt.burden_V[k]}},
+                      inputs);
     }
     if (parser.isSet(QStringLiteral("json"))) {
         QJsonArray ranges;
@@ -320,13 +326,16 @@ int runTemperature(const QStringList& arguments) {
     const double ohms_20C = copperResistanceAt20_ohm(
         ohms_measured, celsiusOption(parser, QStringLiteral("rm-at"), kCopperReference_C));
     const double celsius_ref = celsiusOption(parser, QStringLiteral("ref"), 23.0);
+    const double ohms_at_ref = copperResistance_ohm(ohms_20C, celsius_ref);
+    requireFinite({{"coil resistance at 20 °C", ohms_20C},
+                   {"coil resistance at the reference temperature", ohms_at_ref}},
+                  QStringLiteral("--rm, --rm-at and --ref"));
     const auto celsius = optionalQuantity(parser, QStringLiteral("temp"), Unit::DegreeCelsius);
     if (!celsius && !parser.isSet(QStringLiteral("target"))) {
         throw UsageError(QStringLiteral("give --temp (span error) or --target (swamping design)"));
     }
     QJsonObject json{{QStringLiteral("coil_ohm_20c"), jsonNumber(ohms_20C)},
-                     {QStringLiteral("coil_ohm_at_ref"),
-                      jsonNumber(copperResistance_ohm(ohms_20C, celsius_ref))}};
+                     {QStringLiteral("coil_ohm_at_ref"), jsonNumber(ohms_at_ref)}};
     QStringList lines{tableRow(QStringLiteral("coil at 20 °C"), eng(ohms_20C, Unit::Ohm))};
     if (celsius) {
         CoilCircuit circuit;
@@ -336,12 +345,23 @@ int runTemperature(const QStringList& arguments) {
             optionalQuantity(parser, QStringLiteral("series-tempco"), Unit::PerKelvin)
                 .value_or(0.0)};
         if (const auto shunt = optionalQuantity(parser, QStringLiteral("shunt"), Unit::Ohm)) {
+            if (!(*shunt > 0.0)) {
+                // A shunt of 0 Ω takes all the current: the span error would be 0 / 0.
+                throw UsageError(QStringLiteral("option --shunt must be above 0 \u03A9"));
+            }
             circuit.shunt = TempcoResistor{
                 *shunt, optionalQuantity(parser, QStringLiteral("shunt-tempco"), Unit::PerKelvin)
                             .value_or(0.0)};
         }
         const double ohms_hot = copperResistance_ohm(ohms_20C, *celsius);
         const double error = spanError(circuit, *celsius, celsius_ref);
+        // The caution quotes the drift over 10 K: checked like the numbers printed beside it.
+        const double drift = circuit.shunt ? spanDriftPer10K(circuit, celsius_ref) : 0.0;
+        requireFinite({{"coil resistance at --temp", ohms_hot},
+                       {"span error", 100.0 * error},
+                       {"span drift over 10 K", 100.0 * drift}},
+                      QStringLiteral("--rm, --rm-at, --temp, --ref, --series, --series-tempco, "
+                                     "--shunt and --shunt-tempco"));
         json.insert(QStringLiteral("coil_ohm_at_temp"), jsonNumber(ohms_hot));
         json.insert(QStringLiteral("span_error_percent"), jsonNumber(100.0 * error));
         lines << tableRow(QStringLiteral("coil at ") + eng(*celsius, Unit::DegreeCelsius, 3),
@@ -362,6 +382,11 @@ int runTemperature(const QStringList& arguments) {
     }
     if (parser.isSet(QStringLiteral("target"))) {
         const SwampDesign design = designSwamp(swampRequestFrom(parser, ohms_20C, celsius_ref));
+        requireFinite({{"swamping resistor", design.ohms_swamp_20C},
+                       {"resized shunt", design.ohms_shunt_20C.value_or(0.0)},
+                       {"worst span error", 100.0 * design.worst_error_fraction}},
+                      QStringLiteral("--rm, --rm-at, --ref, --target, --from, --to, "
+                                     "--swamp-tempco, --ifs, --range and --shunt-tempco"));
         json.insert(QStringLiteral("swamp_ohm"), jsonNumber(design.ohms_swamp_20C));
         json.insert(QStringLiteral("swamp_shunt_ohm"), design.ohms_shunt_20C
                                                            ? jsonNumber(*design.ohms_shunt_20C)
@@ -378,99 +403,6 @@ int runTemperature(const QStringList& arguments) {
             lines << tableRow(QStringLiteral("resized shunt"),
                               eng(*design.ohms_shunt_20C, Unit::Ohm));
         }
-    }
-    if (parser.isSet(QStringLiteral("json"))) {
-        printJson(json);
-    } else {
-        printLine(lines.join(QLatin1Char('\n')));
-    }
-    return 0;
-}
-
-int runEseries(const QStringList& arguments) {
-    const QString command = QStringLiteral("calc eseries");
-    QCommandLineParser parser;
-    parser.setApplicationDescription(QStringLiteral(
-        "Nearest IEC 60063 value not above a computed resistance, and the trim to reach it."));
-    parser.addOption(valueOption(QStringLiteral("value"),
-                                 QStringLiteral("Computed resistance (e.g. 4k7)."),
-                                 QStringLiteral("OHM")));
-    parser.addOption(valueOption(QStringLiteral("series"),
-                                 QStringLiteral("E6, E12, E24, E48, E96 (default) or E192."),
-                                 QStringLiteral("SERIES")));
-    parser.addOption(valueOption(QStringLiteral("current"),
-                                 QStringLiteral("Current at full scale, for the dissipation."),
-                                 QStringLiteral("A")));
-    parser.addOption(valueOption(QStringLiteral("rating"),
-                                 QStringLiteral("Power rating of the part (default 0.25W)."),
-                                 QStringLiteral("W")));
-    parser.addOption(valueOption(QStringLiteral("voltage-rating"),
-                                 QStringLiteral("Largest working voltage of the part (default "
-                                                "250V, typical of a 0.25 W film resistor)."),
-                                 QStringLiteral("V")));
-    parseOptions(parser, command, arguments, ReadsValues::Yes);
-    if (helpRequested(parser, command)) {
-        return 0;
-    }
-    const double ohms = requireQuantity(parser, QStringLiteral("value"), Unit::Ohm);
-    const QString seriesText = parser.isSet(QStringLiteral("series"))
-                                   ? parser.value(QStringLiteral("series"))
-                                   : QStringLiteral("E96");
-    const auto series = eseriesFromText(seriesText.trimmed().toStdString());
-    if (!series) {
-        throw UsageError(QStringLiteral("option --series \"%1\": expected one of "
-                                        "E6|E12|E24|E48|E96|E192")
-                             .arg(seriesText));
-    }
-    const ResistorChoice choice = chooseResistor(ohms, *series);
-    const QJsonValue null(QJsonValue::Null);
-    QJsonObject json{
-        {QStringLiteral("wanted_ohm"), jsonNumber(ohms)},
-        {QStringLiteral("series"), QString::fromUtf8(toText(*series).data())},
-        {QStringLiteral("nearest_not_above_ohm"), jsonNumber(choice.ohms_standard)},
-        {QStringLiteral("nearest_ohm"), jsonNumber(nearestStandard(ohms, *series))},
-        {QStringLiteral("trim_ohm"), choice.trimPractical ? jsonNumber(choice.ohms_trim) : null},
-        {QStringLiteral("trim_range_ohm"), jsonNumber(choice.ohms_trim_range)},
-        {QStringLiteral("trimmer_ohm"),
-         choice.trimPractical ? jsonNumber(choice.ohms_trimmer) : null},
-        {QStringLiteral("trim_note"),
-         choice.trimPractical ? null : QJsonValue(QString::fromStdString(choice.trimNote))},
-        {QStringLiteral("tolerance_percent"), jsonNumber(100.0 * eseriesTolerance(*series))}};
-    QStringList lines{
-        choice.trimPractical
-            ? QStringLiteral("%1 not above %2: %3, trim %4 (trimmer %5 covers the %6 tolerance)")
-                  .arg(seriesText.toUpper(), eng(ohms, Unit::Ohm),
-                       eng(choice.ohms_standard, Unit::Ohm), eng(choice.ohms_trim, Unit::Ohm),
-                       eng(choice.ohms_trimmer, Unit::Ohm, 2),
-                       eng(100.0 * eseriesTolerance(*series), Unit::Percent, 2))
-            : QStringLiteral("%1 not above %2: %3; %4")
-                  .arg(seriesText.toUpper(), eng(ohms, Unit::Ohm),
-                       eng(choice.ohms_standard, Unit::Ohm),
-                       QString::fromStdString(choice.trimNote))};
-    if (const auto amps = optionalQuantity(parser, QStringLiteral("current"), Unit::Ampere)) {
-        const double rating = optionalQuantity(parser, QStringLiteral("rating"), Unit::Watt)
-                                  .value_or(kTypicalRating_W);
-        const double volts = optionalQuantity(parser, QStringLiteral("voltage-rating"), Unit::Volt)
-                                 .value_or(kTypicalVoltageRating_V);
-        const Dissipation heat = dissipation(ohms, *amps, rating, kTypicalDerating, volts);
-        const auto caution = ratingCaution(heat, "the part");
-        json.insert(QStringLiteral("dissipation_w"), jsonNumber(heat.watts_fs));
-        json.insert(QStringLiteral("dissipation_overrange_w"), jsonNumber(heat.watts_overrange));
-        json.insert(QStringLiteral("voltage_overrange_v"), jsonNumber(heat.volts_overrange));
-        json.insert(QStringLiteral("exceeds_rating"), heat.overRating);
-        json.insert(QStringLiteral("exceeds_derated_rating"), heat.aboveDeratedRating);
-        json.insert(QStringLiteral("exceeds_voltage_rating"), heat.overVoltageRating);
-        json.insert(QStringLiteral("caution"),
-                    caution ? QJsonValue(QString::fromStdString(*caution)) : null);
-        lines << QStringLiteral("dissipation %1 at full scale, %2 at 120 %, %3 across it at 120 %")
-                     .arg(eng(heat.watts_fs, Unit::Watt), eng(heat.watts_overrange, Unit::Watt),
-                          eng(heat.volts_overrange, Unit::Volt));
-        if (caution) {
-            lines << QStringLiteral("caution: ") + QString::fromStdString(*caution);
-        }
-    } else if (parser.isSet(QStringLiteral("rating")) ||
-               parser.isSet(QStringLiteral("voltage-rating"))) {
-        throw UsageError(QStringLiteral("options --rating and --voltage-rating need --current"));
     }
     if (parser.isSet(QStringLiteral("json"))) {
         printJson(json);

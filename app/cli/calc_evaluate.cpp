@@ -5,7 +5,9 @@
 #include "app/cli/cli_support.h"
 #include "app/cli/command_table.h"
 #include "core/evaluation/evaluation.h"
+#include "core/uncertainty/budget.h"
 #include "core/uncertainty/distributions.h"
+#include "core/units/quantity.h"
 
 #include <QJsonObject>
 
@@ -28,14 +30,15 @@ double parseProbability(const QString& raw) {
     bool ok = false;
     double number = value.trimmed().toDouble(&ok);
     if (!ok || !std::isfinite(number)) {
-        throw UsageError(QStringLiteral("option --probability \"%1\": not a number").arg(raw));
+        throw UsageError(
+            QStringLiteral("option --probability \"%1\": not a number").arg(excerpt(raw)));
     }
     if (percent || number > 1.0) {
         number /= 100.0;
     }
     if (!(number > 0.0 && number < 1.0)) {
-        throw UsageError(
-            QStringLiteral("option --probability \"%1\": must lie between 0 and 100 %").arg(raw));
+        throw UsageError(QStringLiteral("option --probability \"%1\": must lie between 0 and 100 %")
+                             .arg(excerpt(raw)));
     }
     return std::fabs(number - 0.9545) < 5e-9 ? kProbabilityTwoSigma : number;
 }
@@ -52,13 +55,13 @@ double parseDof(const QString& raw) {
     const double dof = value.toDouble(&ok);
     if (!ok || !(dof > 0.0) || !std::isfinite(dof)) {
         throw UsageError(
-            QStringLiteral("option --dof \"%1\": expected a number >= 1 or inf").arg(raw));
+            QStringLiteral("option --dof \"%1\": expected a number >= 1 or inf").arg(excerpt(raw)));
     }
     if (dof < 1.0) {
         throw UsageError(QStringLiteral("option --dof \"%1\": truncated to the next lower integer "
                                         "it is 0, and JCGM 100:2008 Table G.2 starts at 1 degree "
                                         "of freedom")
-                             .arg(raw));
+                             .arg(excerpt(raw)));
     }
     return dof;
 }
@@ -83,9 +86,10 @@ int runCoverage(const QStringList& arguments) {
                                    : kProbabilityTwoSigma;
     const double used = tableDof(dof);
     const double k = coverageFactor(dof, probability);
+    requireFinite({{"coverage factor k", k}}, QStringLiteral("--dof and --probability"));
     if (parser.isSet(QStringLiteral("json"))) {
         QJsonObject out;
-        out[QStringLiteral("k")] = k;
+        out[QStringLiteral("k")] = jsonNumber(k);
         out[QStringLiteral("dof")] = jsonNumber(dof);
         out[QStringLiteral("dof_used")] = jsonNumber(used);
         out[QStringLiteral("probability")] = probability;
@@ -100,6 +104,90 @@ int runCoverage(const QStringList& arguments) {
                                    : QString(),
                        QString::number(100.0 * probability, 'g', 6)));
     return 0;
+}
+
+// The options every number of an evaluation may come from.
+const QString kEvaluationInputs = QStringLiteral(
+    "--range, --fiducial, --reference, --reference-range, --reference-resolution, --divisions, "
+    "--readability, --ambient, --reference-temperature, --tempco, --rs, --rm, --guard-factor "
+    "and the readings");
+
+// Degrees of freedom may be infinite (the normal law) but never NaN.
+double dofForCheck(double dof) {
+    return std::isinf(dof) && dof > 0.0 ? 0.0 : dof;
+}
+
+void requireFinitePoint(const PointResult& p, const Unit unit) {
+    const QString inputs =
+        QStringLiteral("%1, at the point %2")
+            .arg(kEvaluationInputs, QString::fromStdString(formatEngineering(p.applied, 5, unit)));
+    requireFinite({{"indication", p.indicated},
+                   {"error", p.error},
+                   {"error in % of reading", p.errorPercentOfReading.value_or(0.0)},
+                   {"error in % of the fiducial value", p.errorPercentOfFiducial},
+                   {"error going up", p.errorUp.value_or(0.0)},
+                   {"error going down", p.errorDown.value_or(0.0)},
+                   {"hysteresis", p.hysteresis.value_or(0.0)},
+                   {"repeatability", p.repeatability.value_or(0.0)},
+                   {"limit of error", p.permissibleError},
+                   {"combined standard uncertainty", p.budget.combined},
+                   {"effective degrees of freedom", dofForCheck(p.budget.dofEffective)},
+                   {"coverage factor", p.budget.coverageFactor},
+                   {"expanded uncertainty", p.budget.expanded},
+                   {"rounded expanded uncertainty", p.budget.expandedRounded},
+                   {"TUR", p.tur.value_or(0.0)},
+                   {"conformance probability", p.conformanceProbability},
+                   {"specific risk", p.specificRisk.value_or(0.0)},
+                   {"degrees of freedom of the risk", dofForCheck(p.riskDof)}},
+                  inputs);
+    for (std::size_t i = 0; i < p.components.size(); ++i) {
+        const UncertaintyComponent& c = p.components[i];
+        requireFinite({{"value of a budget component", c.value},
+                       {"divisor of a budget component", divisor(c)},
+                       {"sensitivity coefficient of a budget component", c.sensitivity},
+                       {"standard uncertainty of a budget component", standardUncertainty(c)},
+                       {"contribution of a budget component", p.budget.contributions.at(i)},
+                       {"degrees of freedom of a budget component", dofForCheck(c.dof)}},
+                      inputs);
+    }
+}
+
+// Every number the text or the JSON of an evaluation shows, and those its sentences quote.
+void requireFiniteEvaluation(const EvaluationResult& result, const EvaluationInput& input) {
+    requireFinite({{"fiducial value", result.fiducialValue},
+                   {"limit of error", result.permissibleError},
+                   {"range of the reference", result.referenceRangeValue.value_or(0.0)}},
+                  kEvaluationInputs);
+    for (const PointResult& point : result.points) {
+        requireFinitePoint(point, input.unit);
+    }
+    if (result.advice) {
+        const Advice& advice = *result.advice;
+        requireFinite(
+            {{"zero offset", advice.fit.zeroOffset},
+             {"span factor", advice.fit.spanFactor},
+             {"non-linearity", advice.fit.nonlinearity},
+             {"hysteresis", advice.hysteresis},
+             {"zero effect", advice.zeroEffect},
+             {"span effect", advice.spanEffect},
+             {"worst error as a fraction of the limit", advice.worstErrorFractionOfLimit}},
+            kEvaluationInputs);
+        for (const AdviceEffect& effect : advice.effects) {
+            requireFinite({{"size of an effect", effect.size},
+                           {"effect as a fraction of the limit", effect.fractionOfLimit}},
+                          kEvaluationInputs);
+        }
+    }
+    if (result.correctedResistorOhms && result.correctedChoice) {
+        requireFinite({{"corrected resistor", *result.correctedResistorOhms},
+                       {"nearest standard resistor", result.correctedChoice->ohms_standard},
+                       {"series trim", result.correctedChoice->ohms_trim}},
+                      kEvaluationInputs);
+    }
+    if (result.resistorDeviation) {
+        requireFinite({{"deviation of the resistor", result.resistorDeviation->deviationPercent}},
+                      kEvaluationInputs);
+    }
 }
 
 int runEvaluate(const QStringList& arguments) {
@@ -132,6 +220,7 @@ int runEvaluate(const QStringList& arguments) {
     } catch (const EvaluationError& error) {
         throw UsageError(messageWithCsvLine(error, request.readings));
     }
+    requireFiniteEvaluation(result, request.input);
     if (parser.isSet(QStringLiteral("json"))) {
         printJson(evaluationJson(result, request));
     } else {

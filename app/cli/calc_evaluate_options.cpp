@@ -19,7 +19,8 @@ ScaleRange parseRange(const QString& raw, Unit& unit, int& prefixPower,
                       const ParseOptions& options) {
     const QStringList parts = raw.split(QStringLiteral(".."));
     if (parts.size() > 2) {
-        throw UsageError(QStringLiteral("option --range \"%1\": expected 10V or -5V..5V").arg(raw));
+        throw UsageError(
+            QStringLiteral("option --range \"%1\": expected 10V or -5V..5V").arg(excerpt(raw)));
     }
     ScaleRange range;
     try {
@@ -29,7 +30,7 @@ ScaleRange parseRange(const QString& raw, Unit& unit, int& prefixPower,
             throw UsageError(
                 QStringLiteral("option --range \"%1\": give a voltage or a current with its unit, "
                                "e.g. 10V or 50uA")
-                    .arg(raw));
+                    .arg(excerpt(raw)));
         }
         prefixPower = upper.prefixPower;
         ParseOptions lowerOptions = options;
@@ -40,12 +41,12 @@ ScaleRange parseRange(const QString& raw, Unit& unit, int& prefixPower,
                           : 0.0;
     } catch (const QuantityError& error) {
         throw UsageError(QStringLiteral("option --range \"%1\": %2")
-                             .arg(raw, QString::fromStdString(error.what())));
+                             .arg(excerpt(raw), QString::fromStdString(error.what())));
     }
     if (!(range.upper > range.lower)) {
         throw UsageError(
             QStringLiteral("option --range \"%1\": the upper limit must exceed the lower")
-                .arg(raw));
+                .arg(excerpt(raw)));
     }
     return range;
 }
@@ -56,7 +57,7 @@ double positiveNumber(const QCommandLineParser& parser, const QString& option) {
     const double value = raw.trimmed().toDouble(&ok);
     if (!ok || !(value > 0.0) || !std::isfinite(value)) {
         throw UsageError(
-            QStringLiteral("option --%1 \"%2\": expected a number > 0").arg(option, raw));
+            QStringLiteral("option --%1 \"%2\": expected a number > 0").arg(option, excerpt(raw)));
     }
     return value;
 }
@@ -82,7 +83,7 @@ void addReadingsAndScaleOptions(QCommandLineParser& parser) {
              "','. A comma inside a value is a decimal comma only with --decimal-comma (then "
              "separate cells by ';' or quote them). Every row must have as many cells as the "
              "header; blank lines and lines starting with # are skipped. Messages give the "
-             "file's line number (the header is line 1)."),
+             "file's line number (the header is line 1). A regular file of at most 4 MiB."),
          QStringLiteral("FILE")});
     parser.addOption({QStringLiteral("range"),
                       QStringLiteral("Range, e.g. 10V or -50uA..50uA; its prefix is the unit of "
@@ -193,7 +194,7 @@ std::optional<double> rangeQuantity(const QCommandLineParser& parser, const QStr
                           valueOptions(parser, request.rangePrefixPower));
     } catch (const QuantityError& error) {
         throw UsageError(QStringLiteral("option --%1 \"%2\": %3")
-                             .arg(option, text, QString::fromStdString(error.what())));
+                             .arg(option, excerpt(text), QString::fromStdString(error.what())));
     }
 }
 
@@ -205,9 +206,10 @@ void addClassAndScale(const QCommandLineParser& parser, EvaluateRequest& request
     input.classIndex = index.replace(QLatin1Char(','), QLatin1Char('.')).toDouble(&ok);
     if (!ok || !isStandardClassIndex(input.classIndex)) {
         // The statement of conformity names the class of IEC 60051-2: only the series is valid.
-        throw UsageError(QStringLiteral("option --class \"%1\": not an IEC 60051-2 class index; "
-                                        "use one of %2")
-                             .arg(parser.value(QStringLiteral("class")), classSeriesText()));
+        throw UsageError(
+            QStringLiteral("option --class \"%1\": not an IEC 60051-2 class index; "
+                           "use one of %2")
+                .arg(excerpt(parser.value(QStringLiteral("class"))), classSeriesText()));
     }
     const QString scale = chooseOne(parser, QStringLiteral("scale"),
                                     {QStringLiteral("zero-at-end"), QStringLiteral("zero-inside"),
@@ -217,7 +219,7 @@ void addClassAndScale(const QCommandLineParser& parser, EvaluateRequest& request
     input.range.fiducialOverride = rangeQuantity(parser, QStringLiteral("fiducial"), request);
     if (input.range.fiducialOverride && !(*input.range.fiducialOverride > 0.0)) {
         throw UsageError(QStringLiteral("option --fiducial \"%1\": must be above zero")
-                             .arg(parser.value(QStringLiteral("fiducial"))));
+                             .arg(excerpt(parser.value(QStringLiteral("fiducial")))));
     }
     if (input.range.type == ScaleType::NonLinear && !input.range.fiducialOverride) {
         throw UsageError(QStringLiteral("option --fiducial is required with --scale non-linear: "
@@ -254,7 +256,7 @@ void addReadingAids(const QCommandLineParser& parser, EvaluationInput& input) {
         if (!ok || input.divisions < 1) {
             throw UsageError(QStringLiteral("option --divisions \"%1\": expected a whole number "
                                             ">= 1")
-                                 .arg(parser.value(QStringLiteral("divisions"))));
+                                 .arg(excerpt(parser.value(QStringLiteral("divisions")))));
         }
     }
     if (parser.isSet(QStringLiteral("readability"))) {

@@ -15,6 +15,7 @@
 #include <cmath>
 #include <limits>
 #include <optional>
+#include <stdexcept>
 #include <vector>
 
 namespace mw::cli {
@@ -137,6 +138,21 @@ RectifierMeter meterFrom(const QCommandLineParser& parser, const RectifierCircui
     return RectifierMeter(circuit, diode, celsius);
 }
 
+// Runs a solve of the rectifier circuit. Its iterations are sized for meters (microamperes to
+// amperes, ohms to megohms, real diodes); far outside that they may not settle, which is the
+// values' doing, not a fault to report: refused like a result beyond a double.
+template <typename Solve>
+auto solvedOrRefused(const char* result, const QString& inputs, Solve solve) {
+    try {
+        return solve();
+    } catch (const std::runtime_error& error) {
+        throw UsageError(
+            QStringLiteral("the %1 cannot be computed from the values of %2: %3; "
+                           "check those values")
+                .arg(QString::fromUtf8(result), inputs, QString::fromStdString(error.what())));
+    }
+}
+
 // A hazardous-live caution and a rating caution, joined; null when there is neither.
 QJsonValue cautionFor(std::optional<std::string> hazard, const std::optional<std::string>& other) {
     if (other) {
@@ -219,21 +235,38 @@ int runMultiplier(const QStringList& arguments) {
         optionalQuantity(parser, QStringLiteral("voltage-rating"), Unit::Volt)
             .value_or(kTypicalVoltageRating_V);
     const RectifierMeter meter = meterFrom(parser, circuit);
-    const MultiplierSolution solution = solveMultiplier(meter, range_volts);
+    const QString inputs = QStringLiteral("--ifs, --rm, --rsh, --range and the diode options");
+    const MultiplierSolution solution =
+        solvedOrRefused("multiplier", inputs,
+                        [&meter, range_volts] { return solveMultiplier(meter, range_volts); });
 
     const double ohms = solution.multiplier_ohms;
+    const double sensitivity = acSensitivityOhmPerVolt(circuit, averagePerRms(rectifier));
+    requireFinite({{"multiplier", ohms},
+                   {"multiplier with ideal diodes", solution.ideal_multiplier_ohms},
+                   {"rms current at full scale", solution.multiplier_rms_amps_fs},
+                   {"sensitivity", sensitivity},
+                   // The source sees range / I_rms; per volt of range that is 1 / I_rms.
+                   {"input resistance", range_volts / solution.multiplier_rms_amps_fs},
+                   {"effective sensitivity", 1.0 / solution.multiplier_rms_amps_fs}},
+                  inputs);
     const bool positive = ohms > 0.0;
     const ResistorChoice choice = positive ? chooseResistor(ohms, ESeries::E96) : ResistorChoice{};
     // rms current and voltage: the working voltage of a resistor is given as DC or AC rms.
     const Dissipation heat = positive ? dissipation(ohms, solution.multiplier_rms_amps_fs,
                                                     watts_rating, kTypicalDerating, volts_rating)
                                       : Dissipation{};
+    requireFinite({{"nearest E96 value", choice.ohms_standard},
+                   {"trim", choice.ohms_trim},
+                   {"trimmer", choice.ohms_trimmer},
+                   {"dissipation at 120 %", heat.watts_overrange},
+                   {"power rating to choose", heat.watts_overrange / kTypicalDerating},
+                   {"voltage at 120 %", heat.volts_overrange}},
+                  inputs);
     QJsonObject json;
     json[QStringLiteral("multiplier_ohm")] = jsonNumber(ohms);
     json[QStringLiteral("multiplier_ideal_ohm")] = jsonNumber(solution.ideal_multiplier_ohms);
-    json[QStringLiteral("sensitivity_ohm_per_volt")] =
-        jsonNumber(acSensitivityOhmPerVolt(circuit, averagePerRms(rectifier)));
-    // The source sees range / I_rms; per volt of range that is 1 / I_rms.
+    json[QStringLiteral("sensitivity_ohm_per_volt")] = jsonNumber(sensitivity);
     json[QStringLiteral("input_resistance_ohm")] =
         jsonNumber(range_volts / solution.multiplier_rms_amps_fs);
     json[QStringLiteral("effective_sensitivity_ohm_per_volt")] =
@@ -308,7 +341,20 @@ int runIndication(const QStringList& arguments) {
     const RectifierMeter meter = meterFrom(parser, circuit);
     const Waveform input = rectifier == Rectifier::None ? Waveform::sineWithOffset(0.0, input_volts)
                                                         : Waveform::withRms(shape, input_volts);
-    const Indication indication = predictIndication(meter, range_volts, input);
+    const QString inputs = QStringLiteral(
+        "--ifs, --rm, --rs, --rsh, --range, --input, --waveform and the diode options");
+    const Indication indication =
+        solvedOrRefused("indication", inputs, [&meter, range_volts, &input] {
+            return predictIndication(meter, range_volts, input);
+        });
+    // The caution quotes the input's peak (rms x crest factor).
+    requireFinite(
+        {{"movement current", indication.movement_amps},
+         {"indication", indication.indicated},
+         {"error", indication.error_percent_of_range},
+         {"applied value", indication.input_rms_volts},
+         {"peak of the input", input_volts != 0.0 ? input_volts * input.crestFactor() : 0.0}},
+        inputs);
 
     QJsonObject json;
     json[QStringLiteral("movement_current_avg_a")] = jsonNumber(indication.movement_amps);

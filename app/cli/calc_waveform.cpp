@@ -72,14 +72,14 @@ std::vector<double> readSamples(const QString& path, bool decimalComma) {
         }
     } else {
         for (const CsvLine& line : lines) {
-            volts.push_back(sampleVolts(path + QStringLiteral(" line %1").arg(line.number),
-                                        line.text.trimmed(), decimalComma));
+            volts.push_back(sampleVolts(
+                QStringLiteral("%1 line %2").arg(shownPath(path), QString::number(line.number)),
+                line.text.trimmed(), decimalComma));
         }
     }
     if (volts.size() < 2) {
         throw UsageError(QStringLiteral("%1: one period needs at least 2 samples, found %2")
-                             .arg(path)
-                             .arg(volts.size()));
+                             .arg(shownPath(path), QString::number(volts.size())));
     }
     return volts;
 }
@@ -150,13 +150,14 @@ int runWaveform(const QStringList& arguments) {
                    QStringLiteral("Peak of the AC part, instead of --rms."), QStringLiteral("V"));
     addValueOption(parser, QStringLiteral("offset"),
                    QStringLiteral("DC offset added to a sine (default 0V)."), QStringLiteral("V"));
-    addValueOption(parser, QStringLiteral("samples"),
-                   QStringLiteral("File with one period of evenly spaced samples in volts: one "
-                                  "value per line, or a CSV whose header has a column v and "
-                                  "optionally n or t, not read (separator ';' if the header "
-                                  "has one, else ','). Replaces "
-                                  "--waveform, --rms, --peak and --offset."),
-                   QStringLiteral("FILE"));
+    addValueOption(
+        parser, QStringLiteral("samples"),
+        QStringLiteral("File with one period of evenly spaced samples in volts: one "
+                       "value per line, or a CSV whose header has a column v and "
+                       "optionally n or t, not read (separator ';' if the header "
+                       "has one, else ','). Replaces "
+                       "--waveform, --rms, --peak and --offset. A regular file of at most 4 MiB."),
+        QStringLiteral("FILE"));
     addValueOption(parser, QStringLiteral("rectifier"),
                    QStringLiteral("Meter's rectifier: bridge (default) or half."),
                    QStringLiteral("KIND"));
@@ -171,6 +172,22 @@ int runWaveform(const QStringList& arguments) {
     const Rectification rectification =
         kind == QStringLiteral("half") ? Rectification::HalfWave : Rectification::FullWave;
     const AverageRespondingReading reading = averageRespondingReading(wave, rectification);
+    // Samples of 1e200 V square to more than a double holds; 1e-200 V to nothing, and the
+    // error is then taken against an rms of zero.
+    const double rms_volts = wave.rms();
+    requireFinite({{"true rms", rms_volts},
+                   {"rectified average", wave.rectifiedAverage()},
+                   {"half-wave average", wave.halfWaveAverage()},
+                   {"mean", wave.mean()},
+                   {"form factor", wave.formFactor()},
+                   {"crest factor", rms_volts > 0.0 ? wave.crestFactor() : 0.0},
+                   {"peak", rms_volts > 0.0 ? rms_volts * wave.crestFactor() : 0.0},
+                   {"reading", reading.indicated_volts},
+                   {"reading error", reading.error_percent}},
+                  parser.isSet(QStringLiteral("samples"))
+                      ? QStringLiteral("the samples in --samples \"%1\"")
+                            .arg(excerpt(parser.value(QStringLiteral("samples"))))
+                      : QStringLiteral("--rms, --peak and --offset"));
 
     QJsonObject json;
     json[QStringLiteral("waveform")] = QString::fromUtf8(shapeName(wave.shape()).data());

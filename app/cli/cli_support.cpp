@@ -106,8 +106,8 @@ std::optional<std::chrono::sys_days> optionalDate(const QCommandLineParser& pars
     const QString text = parser.value(option);
     const QDate date = QDate::fromString(text, Qt::ISODate);
     if (!date.isValid()) {
-        throw UsageError(
-            QStringLiteral("option --%1 \"%2\": expected a date as YYYY-MM-DD").arg(option, text));
+        throw UsageError(QStringLiteral("option --%1 \"%2\": expected a date as YYYY-MM-DD")
+                             .arg(option, excerpt(text)));
     }
     return std::chrono::sys_days{std::chrono::year{date.year()} /
                                  static_cast<unsigned>(date.month()) /
@@ -132,12 +132,13 @@ QString chooseOne(const QCommandLineParser& parser, const QString& option,
     return value;
 }
 
-void requireFinite(std::initializer_list<std::pair<const char*, double>> results) {
-    for (const auto& [name, value] : results) {
-        if (!std::isfinite(value)) {
-            throw UsageError(QStringLiteral("the %1 comes out beyond the numbers this program can "
-                                            "hold (about 1e300); check the values given")
-                                 .arg(QLatin1String(name)));
+void requireFinite(std::initializer_list<NamedResult> results, const QString& inputs) {
+    for (const NamedResult& result : results) {
+        if (!std::isfinite(result.value)) {
+            throw UsageError(QStringLiteral("the %1 cannot be computed from the values of %2: it "
+                                            "comes out beyond the numbers this program can hold "
+                                            "(about 1e-300 to 1e300 in size); check those values")
+                                 .arg(QString::fromUtf8(result.name), inputs));
         }
     }
 }

@@ -51,9 +51,16 @@ std::optional<double> optionalQuantity(const QCommandLineParser& parser, const Q
 // so that a cell of megabytes is not echoed back whole.
 QString excerpt(const QString& text, qsizetype limit = 40);
 
-// Refuses (UsageError) a computed result that is not a finite number, naming it: inputs that
-// far apart overflow a double, and "inf" is no answer to print.
-void requireFinite(std::initializer_list<std::pair<const char*, double>> results);
+// One computed result by name, for requireFinite.
+struct NamedResult {
+    const char* name;
+    double value;
+};
+
+// Refuses (UsageError) the first computed result that is not a finite number, naming it and
+// `inputs`, the options it is computed from ("--ifs, --rm and --range"): inputs that far apart
+// overflow a double on the way, and "inf" or "nan" is no answer to print.
+void requireFinite(std::initializer_list<NamedResult> results, const QString& inputs);
 
 QString requireText(const QCommandLineParser& parser, const QString& option);
 

@@ -4,9 +4,14 @@
 #include "app/cli/cli_support.h"
 
 #include <QFile>
-#include <QFileInfo>
 
 #include <algorithm>
+#include <cerrno>
+#include <cstring>
+#include <fcntl.h>
+#include <optional>
+#include <sys/stat.h>
+#include <unistd.h>
 
 namespace mw::cli {
 namespace {
@@ -37,7 +42,7 @@ int CsvTable::column(const QString& name) const {
 }
 
 QString CsvTable::where(int line) const {
-    return QStringLiteral("%1 line %2").arg(path).arg(line);
+    return QStringLiteral("%1 line %2").arg(shownPath(path), QString::number(line));
 }
 
 void CsvTable::requireKnownColumns(const QStringList& allowed) const {
@@ -58,62 +63,118 @@ QString escapedCell(const QString& text) {
     return excerpt(text);
 }
 
-std::vector<CsvLine> readDataLines(const QString& path, const QString& option) {
-    const QString shown = escapedCell(path);
-    // A FIFO would block the command and a device (/dev/zero) never ends: regular files only,
-    // asked before opening, since opening a FIFO already blocks.
-    const QFileInfo info(path);
-    if (info.exists() && !info.isFile()) {
+QString shownPath(const QString& path) {
+    constexpr qsizetype kLongestPath = 200;
+    return excerpt(path, kLongestPath);
+}
+
+namespace {
+
+QString tooLarge(const QString& option, const QString& shown) {
+    return QStringLiteral("option --%1 \"%2\": the file is larger than %3 MiB, the limit for a "
+                          "file of readings or samples")
+        .arg(option, shown, QString::number(kMaxDataFileBytes / (1024 * 1024)));
+}
+
+// Opens `path` for reading if it is a regular file of at most kMaxDataFileBytes. A FIFO would
+// block the command and a device (/dev/zero) never ends: the descriptor is opened without
+// blocking and its own type asked, so that nothing swapped in between a check of the name and
+// the opening is read. A file too large is refused before any of it is read.
+void openRegularFile(QFile& file, const QString& path, const QString& option,
+                     const QString& shown) {
+    const int fd = ::open(QFile::encodeName(path).constData(), O_RDONLY | O_NONBLOCK | O_CLOEXEC);
+    if (fd < 0) {
+        throw UsageError(QStringLiteral("option --%1 \"%2\": %3")
+                             .arg(option, shown, QString::fromLocal8Bit(std::strerror(errno))));
+    }
+    struct stat status {};
+    if (::fstat(fd, &status) != 0 || !S_ISREG(status.st_mode)) {
+        ::close(fd);
         throw UsageError(QStringLiteral("option --%1 \"%2\": not a regular file (a pipe, device "
                                         "or folder); give a file")
                              .arg(option, shown));
     }
-    QFile file(path);
+    if (status.st_size > kMaxDataFileBytes) {
+        ::close(fd);
+        throw UsageError(tooLarge(option, shown));
+    }
+    ::fcntl(fd, F_SETFL, ::fcntl(fd, F_GETFL) & ~O_NONBLOCK);
     // Binary: text mode would drop a CR inside a cell ("1\r5" read as 15) without a word.
-    if (!file.open(QIODevice::ReadOnly)) {
+    if (!file.open(fd, QIODevice::ReadOnly, QFileDevice::AutoCloseHandle)) {
+        ::close(fd);
         throw UsageError(
             QStringLiteral("option --%1 \"%2\": %3").arg(option, shown, file.errorString()));
     }
-    // Read at most one byte past the limit, so memory stays bounded even if the file grows.
-    const QByteArray bytes = file.read(kMaxDataFileBytes + 1);
-    if (bytes.size() > kMaxDataFileBytes) {
-        throw UsageError(QStringLiteral("option --%1 \"%2\": the file is larger than %3 MiB, the "
-                                        "limit for a file of readings or samples")
-                             .arg(option, shown)
-                             .arg(kMaxDataFileBytes / (1024 * 1024)));
-    }
-    const QString content = QString::fromUtf8(bytes);
-    if (content.contains(QLatin1Char('\r')) && !content.contains(QLatin1Char('\n'))) {
+}
+
+// One line as read (its LF included, if it has one) turned into a data line, or nothing for a
+// blank line or a comment; UsageError for a CR that ends no line.
+std::optional<CsvLine> dataLine(const QByteArray& raw, int number, const QString& shown) {
+    QString text = QString::fromUtf8(raw);
+    if (text.endsWith(QLatin1Char('\n'))) {
+        text.chop(1);
+    } else if (number == 1 && text.contains(QLatin1Char('\r'))) {
+        // A whole file without LF: its CRs are line ends of their own.
         throw UsageError(QStringLiteral("%1: lines end with CR only (old Mac line ends); save the "
                                         "file with LF or CRLF line ends")
-                             .arg(path));
+                             .arg(shown));
     }
-    QStringList texts = content.split(QLatin1Char('\n'));
-    if (!texts.isEmpty() && texts.back().isEmpty()) {
-        texts.pop_back(); // the newline after the last line does not start another one
+    if (text.endsWith(QLatin1Char('\r'))) {
+        text.chop(1); // CRLF line end
     }
+    const qsizetype cr = text.indexOf(QLatin1Char('\r'));
+    if (cr >= 0) {
+        throw UsageError(QStringLiteral("%1 line %2: a carriage return (CR) at character %3 "
+                                        "inside the line; lines end with LF or CRLF")
+                             .arg(shown, QString::number(number), QString::number(cr + 1)));
+    }
+    if (number == 1 && text.startsWith(QChar(0xFEFF))) {
+        text.remove(0, 1); // the byte-order mark spreadsheets write before UTF-8
+    }
+    const QString trimmed = text.trimmed();
+    if (trimmed.isEmpty() || trimmed.startsWith(QLatin1Char('#'))) {
+        return std::nullopt;
+    }
+    return CsvLine{number, text};
+}
+
+} // namespace
+
+std::vector<CsvLine> readDataLines(const QString& path, const QString& option) {
+    const QString shown = shownPath(path);
+    QFile file;
+    openRegularFile(file, path, option, shown);
+    // In blocks, each line taken as soon as its LF arrives, never more than the limit and one
+    // block past it in all: memory stays bounded even if the file grows while it is read.
+    constexpr qint64 kBlockBytes = 64 * 1024;
     std::vector<CsvLine> lines;
-    for (int number = 1; number <= texts.size(); ++number) {
-        QString text = texts[number - 1];
-        if (text.endsWith(QLatin1Char('\r'))) {
-            text.chop(1); // CRLF line end
+    QByteArray pending; // the start of a line whose LF has not come yet
+    qint64 bytesRead = 0;
+    int number = 0;
+    const auto take = [&](const QByteArray& raw) {
+        if (std::optional<CsvLine> line = dataLine(raw, ++number, shown)) {
+            lines.push_back(std::move(*line));
         }
-        const qsizetype cr = text.indexOf(QLatin1Char('\r'));
-        if (cr >= 0) {
-            throw UsageError(QStringLiteral("%1 line %2: a carriage return (CR) at character %3 "
-                                            "inside the line; lines end with LF or CRLF")
-                                 .arg(path)
-                                 .arg(number)
-                                 .arg(cr + 1));
+    };
+    for (;;) {
+        const QByteArray block = file.read(kBlockBytes);
+        if (block.isEmpty()) {
+            break;
         }
-        if (number == 1 && text.startsWith(QChar(0xFEFF))) {
-            text.remove(0, 1); // the byte-order mark spreadsheets write before UTF-8
+        bytesRead += block.size();
+        if (bytesRead > kMaxDataFileBytes) {
+            throw UsageError(tooLarge(option, shown)); // it grew while it was read
         }
-        const QString trimmed = text.trimmed();
-        if (trimmed.isEmpty() || trimmed.startsWith(QLatin1Char('#'))) {
-            continue;
+        pending += block;
+        qsizetype start = 0;
+        for (qsizetype end = pending.indexOf('\n'); end >= 0; end = pending.indexOf('\n', start)) {
+            take(pending.mid(start, end + 1 - start));
+            start = end + 1;
         }
-        lines.push_back({number, text});
+        pending.remove(0, start);
+    }
+    if (!pending.isEmpty()) {
+        take(pending); // the last line, without LF; a LF after the last line starts no other
     }
     return lines;
 }
@@ -153,7 +214,7 @@ CsvTable tableFromLines(const QString& path, const std::vector<CsvLine>& lines) 
     CsvTable table;
     table.path = path;
     if (lines.empty()) {
-        throw UsageError(QStringLiteral("%1: the file holds no header line").arg(path));
+        throw UsageError(QStringLiteral("%1: the file holds no header line").arg(shownPath(path)));
     }
     table.separator = separatorOf(lines.front().text);
     table.header = {lines.front().number, splitCsvLine(lines.front().text, table.separator,

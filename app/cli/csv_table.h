@@ -41,6 +41,10 @@ struct CsvTable {
 // can neither cut nor garble a one-line message; past 40 characters it is cut with a count.
 QString escapedCell(const QString& text);
 
+// `path` as messages quote it: control characters escaped like a cell's, but cut only past 200
+// characters, since the file's name is what a person looks for.
+QString shownPath(const QString& path);
+
 // The largest file of readings or samples a command reads (4 MiB: some 100,000 lines, far
 // beyond a calibration's readings or one period of samples).
 inline constexpr qint64 kMaxDataFileBytes = qint64(4) * 1024 * 1024;

@@ -92,7 +92,7 @@ ReadingsFile readReadingsCsv(const QString& path, Unit unit, const ParseOptions&
         file.lines.push_back(row.line);
     }
     if (file.readings.empty()) {
-        throw UsageError(QStringLiteral("%1: no readings after the header").arg(path));
+        throw UsageError(QStringLiteral("%1: no readings after the header").arg(shownPath(path)));
     }
     return file;
 }
@@ -108,11 +108,10 @@ QString messageWithCsvLine(const EvaluationError& error, const ReadingsFile& fil
     if (!line) {
         return QString::fromStdString(error.what());
     }
-    QString message = QStringLiteral("%1 line %2 (reading %3) %4")
-                          .arg(file.path)
-                          .arg(*line)
-                          .arg(*error.readingNumber())
-                          .arg(QString::fromStdString(error.detail()));
+    QString message =
+        QStringLiteral("%1 line %2 (reading %3) %4")
+            .arg(shownPath(file.path), QString::number(*line),
+                 QString::number(*error.readingNumber()), QString::fromStdString(error.detail()));
     if (const std::optional<int> earlier = lineOf(error.conflictingReadingNumber())) {
         message += QStringLiteral("; reading %1 is on line %2")
                        .arg(*error.conflictingReadingNumber())

@@ -24,6 +24,12 @@ void requireUsageError(const QStringList& arguments, const char* words) {
     CHECK(result.err.endsWith('\n'));
 }
 
+// The same refusal as text and as --json: a result that is no number is printed in neither.
+void requireRefusedInBothFormats(const QStringList& arguments, const char* words) {
+    requireUsageError(arguments, words);
+    requireUsageError(arguments + QStringList{QStringLiteral("--json")}, words);
+}
+
 } // namespace
 
 TEST_CASE("calc shunt gives the shunt of Helfrick & Cooper Example 4-1") {
@@ -235,4 +241,31 @@ TEST_CASE("calc shunt refuses a result beyond the numbers it can hold") {
     mwtest::calc::requireUsageError(
         mwtest::args({"shunt", "--ifs", "1mA", "--rm", "100", "--range", "1e308"}),
         "beyond the numbers");
+}
+
+TEST_CASE("calc temperature refuses a span error or resistance beyond a double") {
+    // Invented inputs far outside any meter, each of which used to print nan or inf with exit 0.
+    requireRefusedInBothFormats(args({"temperature", "--rm", "100", "--temp", "50C", "--series",
+                                      "1k", "--series-tempco", "1e308"}),
+                                "the span error cannot be computed from the values of --rm");
+    requireRefusedInBothFormats(args({"temperature", "--rm", "1e308", "--temp", "1e308"}),
+                                "the coil resistance at --temp cannot be computed");
+    requireRefusedInBothFormats(args({"temperature", "--rm", "1e308", "--target", "0.5%", "--from",
+                                      "0C", "--to", "50C", "--ifs", "1mA", "--range", "1A"}),
+                                "the resized shunt cannot be computed");
+    // A shunt of 0 Ω would make the span error 0 / 0.
+    requireUsageError(args({"temperature", "--rm", "100", "--temp", "50C", "--shunt", "0"}),
+                      "option --shunt must be above 0");
+}
+
+TEST_CASE("calc eseries refuses a dissipation beyond a double") {
+    // Invented: 1e308 Ω carrying 1e154 A dissipates more than a double holds (it printed inf W).
+    requireRefusedInBothFormats(args({"eseries", "--value", "1e308", "--current", "1e154"}),
+                                "the dissipation at 120 % cannot be computed from the values of "
+                                "--value and --current");
+}
+
+TEST_CASE("an exponent counts by its value, not by its digits") {
+    const QJsonObject json = runJson(args({"eseries", "--value", "1e0000003"}));
+    CHECK(json.value(QStringLiteral("wanted_ohm")).toDouble() == 1000.0);
 }

@@ -449,3 +449,13 @@ TEST_CASE("calc evaluate cautions: TUR below 4:1 with simple acceptance, hazardo
               .value(QStringLiteral("hazard_caution"))
               .isString());
 }
+
+TEST_CASE("calc evaluate refuses an error in % of a fiducial value too small for a double") {
+    // Invented: a fiducial value of 1e-308 V makes the error in % of it overflow (printed inf).
+    QTemporaryDir dir;
+    const QString csv = fixture(dir, "readings.csv", kSynthetic);
+    const QStringList arguments = evaluate(csv, {"--fiducial", "1e-308"});
+    const char* const words = "the error in % of the fiducial value cannot be computed";
+    requireUsageError(arguments, words);
+    requireUsageError(arguments + QStringList{QStringLiteral("--json")}, words);
+}

@@ -36,6 +36,12 @@ QString fixture(const QTemporaryDir& dir, const char* name, const QByteArray& te
     return path;
 }
 
+// The same refusal as text and as --json: a result that is no number is printed in neither.
+void requireRefusedInBothFormats(const QStringList& arguments, const char* words) {
+    requireUsageError(arguments, words);
+    requireUsageError(arguments + QStringList{QStringLiteral("--json")}, words);
+}
+
 } // namespace
 
 TEST_CASE("calc multiplier: bridge with ideal diodes, Helfrick & Cooper Example 4-9") {
@@ -344,4 +350,28 @@ TEST_CASE("calc indication and waveform caution at hazardous voltages") {
     CHECK(runJson(args({"waveform", "--waveform", "square", "--rms", "25V"}))
               .value(QStringLiteral("caution"))
               .isNull());
+}
+
+TEST_CASE("calc multiplier, indication and waveform refuse results beyond a double") {
+    // Invented inputs far outside any meter. A 1e-308 Ω shunt across the movement draws more
+    // current than a double holds (the multiplier's dissipation printed inf).
+    requireRefusedInBothFormats(
+        args({"multiplier", "--ifs", "1mA", "--rm", "100", "--range", "10V", "--rsh", "1e-308"}),
+        "the dissipation at 120 % cannot be computed from the values of --ifs, --rm, --rsh, "
+        "--range");
+    // A 1e308 Ω shunt: the current divider takes inf / inf (the indication printed nan).
+    requireRefusedInBothFormats(
+        args({"indication", "--rectifier", "none", "--ifs", "1mA", "--rm", "100", "--rs", "9.9k",
+              "--range", "10V", "--input", "5V", "--rsh", "1e308"}),
+        "the movement current cannot be computed from the values of --ifs");
+    // A movement of 1e-160 A: the real diodes' circuit solve cannot settle (it was an internal
+    // error, exit code 3).
+    requireRefusedInBothFormats(args({"multiplier", "--rectifier", "bridge", "--ifs", "1e-160",
+                                      "--rm", "100", "--range", "10V"}),
+                                "the multiplier cannot be computed from the values of --ifs");
+    // Samples whose squares overflow: the true rms is beyond a double.
+    QTemporaryDir dir;
+    const QString samples = fixture(dir, "huge.csv", "1e200\n-1e200\n");
+    requireRefusedInBothFormats(args({"waveform"}) << QStringLiteral("--samples") << samples,
+                                "the true rms cannot be computed from the values of the samples");
 }
