@@ -106,4 +106,16 @@ std::optional<StoredPublicKey> storedPublicKey(const QSqlDatabase& db, std::int6
                            q.value(4).isNull() ? QString() : q.value(4).toString()};
 }
 
+std::optional<QString> approvalKeyFingerprint(const QSqlDatabase& db, std::int64_t sessionId) {
+    QSqlQuery q = sql::prepare(db, QStringLiteral("SELECT k.public_key FROM record_chain c JOIN "
+                                                  "signing_keys k ON k.id = c.signing_key_id "
+                                                  "WHERE c.session_id = ?"));
+    q.addBindValue(qint64(sessionId));
+    sql::exec(q, QStringLiteral("reading the key that signed session %1").arg(sessionId));
+    if (!q.next()) {
+        return std::nullopt;
+    }
+    return keyFingerprint(q.value(0).toByteArray());
+}
+
 } // namespace mw::storage

@@ -46,4 +46,8 @@ struct StoredPublicKey {
 };
 std::optional<StoredPublicKey> storedPublicKey(const QSqlDatabase& db, std::int64_t keyId);
 
+// The fingerprint of the key that signed the approval of `sessionId` (nullopt when it is not
+// approved, or was approved before approvals were signed).
+std::optional<QString> approvalKeyFingerprint(const QSqlDatabase& db, std::int64_t sessionId);
+
 } // namespace mw::storage

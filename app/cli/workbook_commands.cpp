@@ -79,6 +79,9 @@ void printReport(const storage::VerificationReport& report, const QString& path,
             {QStringLiteral("sessions_checked"), report.sessionsChecked},
             {QStringLiteral("verdicts_checked"), report.verdictsChecked},
             {QStringLiteral("verdicts_not_recorded"), report.verdictsNotRecorded},
+            {QStringLiteral("signatures_checked"), report.signaturesChecked},
+            {QStringLiteral("audit_rows_checked"), report.auditRowsChecked},
+            {QStringLiteral("audit_rows_unsealed"), report.auditRowsUnsealed},
             {QStringLiteral("chain_head"),
              QJsonObject{{QStringLiteral("records"), report.chainLength},
                          {QStringLiteral("digest"), report.chainHeadDigest}}},
@@ -108,6 +111,12 @@ void printReport(const storage::VerificationReport& report, const QString& path,
                       .arg(report.verdictsNotRecorded));
     }
     // Compared with a copy kept elsewhere, the head shows a chain cut back or rebuilt.
+    printLine(QStringLiteral("approvals whose reviewer's signature was checked: %1")
+                  .arg(report.signaturesChecked));
+    printLine(QStringLiteral("audit log rows checked against the seals of approvals: %1 (%2 "
+                             "after the newest approval, sealed by the next)")
+                  .arg(report.auditRowsChecked - report.auditRowsUnsealed)
+                  .arg(report.auditRowsUnsealed));
     printLine(QStringLiteral("chain head: %1 records, last digest %2")
                   .arg(report.chainLength)
                   .arg(report.chainLength == 0 ? QStringLiteral("(none)")

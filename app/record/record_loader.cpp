@@ -6,6 +6,8 @@
 #include "storage/instrument_repository.h"
 #include "storage/lab_repository.h"
 #include "storage/session_repository.h"
+#include "storage/signing_keys.h"
+#include "storage/workbook.h"
 #include "storage/standard_repository.h"
 #include "storage/user_repository.h"
 
@@ -43,6 +45,10 @@ std::optional<RecordSource> RecordLoader::record(std::int64_t sessionId,
     source.standards = standards_;
     source.users = users_;
     source.printedAt = printedAt;
+    if (const auto fingerprint =
+            storage::approvalKeyFingerprint(workbook_.database(), session->id)) {
+        source.signerKeyFingerprint = fingerprint->toStdString();
+    }
     // Read at each printing, not once per loader: the head of the moment the record is printed.
     const storage::ChainHead head = storage::chainHead(workbook_);
     source.chainAtPrinting = ChainAtPrinting{head.length, head.digest.toStdString()};

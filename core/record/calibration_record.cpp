@@ -264,8 +264,12 @@ void addClosing(const RecordFacts& facts, Document& document) {
              "run \"" + std::string(kVerifyCommand) +
                  "\" on the laboratory's workbook: it recomputes the digest of every approved "
                  "record from its stored contents and the chain of records approved before it, "
-                 "and names any record changed since approval. The digest stored for record " +
-                 id + " must equal the one printed here."},
+                 "checks each approval's signature against its reviewer's key, and names any "
+                 "record changed since approval. The digest stored for record " +
+                 id + " must equal the one printed here" +
+                 (source.signerKeyFingerprint ? ", and the key that signed it must have this "
+                                                "fingerprint."
+                                              : ".")},
         }});
     } else {
         document.blocks.push_back(

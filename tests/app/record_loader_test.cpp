@@ -4,10 +4,13 @@
 #include "app/record/record_loader.h"
 
 #include "storage/session_repository.h"
+#include "storage/signing_keys.h"
 #include "storage/workbook.h"
 #include "support/demo_workbook.h"
 
 #include <catch2/catch.hpp>
+
+#include <QRegularExpression>
 
 using namespace mw;
 using namespace mw::record;
@@ -25,7 +28,14 @@ TEST_CASE("a record's source holds the session, its instrument, lab, standards a
     CHECK(source->standards.size() == 4);
     CHECK(source->users.size() == 3);
     CHECK_FALSE(source->successor);
-    CHECK_FALSE(source->signerKeyFingerprint); // the workbook keeps no signed approvals yet
+    // The demo's reviewer signed it: the fingerprint of their key, as verify and the review
+    // page show it.
+    REQUIRE(source->signerKeyFingerprint);
+    CHECK(QRegularExpression(QStringLiteral("^([0-9a-f]{4} ){7}[0-9a-f]{4}$"))
+              .match(QString::fromStdString(*source->signerKeyFingerprint))
+              .hasMatch());
+    CHECK(*source->signerKeyFingerprint ==
+          storage::approvalKeyFingerprint(readOnlyDemo().database(), 1)->toStdString());
     CHECK_FALSE(source->session.digest.empty());
     // The chain as it stands now, whatever record is printed: record 1 is its first entry.
     REQUIRE(source->chainAtPrinting);

@@ -50,9 +50,9 @@ TEST_CASE("upgrade keeps a copy, upgrades in place, and does nothing the second 
     auto run = runMeterwright({QStringLiteral("upgrade"), path});
     INFO(run.out.toStdString() << run.err.toStdString());
     REQUIRE(run.exitCode == 0);
-    const QString kept = path + QStringLiteral(".before-v3.bak");
+    const QString kept = path + QStringLiteral(".before-v4.bak");
     CHECK(run.outText().contains(
-        QStringLiteral("upgraded %1 from workbook version 2 to 3; the file as it was is kept as")
+        QStringLiteral("upgraded %1 from workbook version 2 to 4; the file as it was is kept as")
             .arg(path)));
     CHECK(run.outText().contains(kept));
     REQUIRE(QFileInfo::exists(kept));
@@ -66,11 +66,11 @@ TEST_CASE("upgrade keeps a copy, upgrades in place, and does nothing the second 
     CHECK(run.outText().contains(QStringLiteral("not recomputable): 113")));
 
     const QJsonObject again = mwtest::runJson({QStringLiteral("upgrade"), path});
-    CHECK(again.value(QStringLiteral("version_before")).toInt() == 3);
-    CHECK(again.value(QStringLiteral("version")).toInt() == 3);
+    CHECK(again.value(QStringLiteral("version_before")).toInt() == 4);
+    CHECK(again.value(QStringLiteral("version")).toInt() == 4);
     CHECK(again.value(QStringLiteral("kept_as")).isNull());
     run = runMeterwright({QStringLiteral("upgrade"), path});
-    CHECK(run.outText().contains(QStringLiteral("already at workbook version 3")));
+    CHECK(run.outText().contains(QStringLiteral("already at workbook version 4")));
 }
 
 TEST_CASE("upgrade refuses what is not a workbook and leaves it alone", "[upgrade]") {

@@ -45,7 +45,8 @@ struct LabWorkbook {
             mw::CalibrationSession session = mwtest::draft(seed, start);
             sessions.create(session);
             sessions.submit(session.id, start + std::chrono::hours{3});
-            sessions.approve(session.id, seed.reviewer.id, start + std::chrono::hours{4});
+            sessions.approve(session.id, mwtest::signer(*workbook, seed.reviewer),
+                             start + std::chrono::hours{4});
             approved.push_back(session.id);
         }
     }
