@@ -175,6 +175,16 @@ int main(int argc, char* argv[]) {
         save(window, folder, QStringLiteral("history.png"));
         window.showPage(mw::gui::MainWindow::Page::Due);
         save(window, folder, QStringLiteral("due.png"));
+        // Last, so the other pictures show the queue as the demo leaves it: one approval, signed
+        // with the reviewer's key.
+        window.showPage(mw::gui::MainWindow::Page::Review);
+        if (review->queue()->rowCount() > 0) {
+            review->queue()->selectRow(0);
+            QString message;
+            if (review->approve(QStringLiteral("demo-review"), &message)) {
+                save(window, folder, QStringLiteral("review-approved.png"));
+            }
+        }
     }
 
     // The administrator's instrument editor, a value refused beside its field.
