@@ -7,9 +7,9 @@
 #include "storage/lab_repository.h"
 #include "storage/session_repository.h"
 #include "storage/signing_keys.h"
-#include "storage/workbook.h"
 #include "storage/standard_repository.h"
 #include "storage/user_repository.h"
+#include "storage/workbook.h"
 
 #include <chrono>
 
