@@ -8,6 +8,7 @@
 #include "storage/workbook.h"
 #include "support/cli_process.h"
 #include "support/demo_workbook.h"
+#include "support/sqlite_shell.h"
 
 #include <catch2/catch.hpp>
 
@@ -22,31 +23,11 @@
 using mwtest::CliResult;
 using mwtest::runMeterwright;
 
+using mwtest::copyOfDemo;
+using mwtest::dropTriggers;
+using mwtest::shell;
+
 namespace {
-
-QString copyOfDemo(const QTemporaryDir& dir, const QString& name) {
-    const QString path = dir.filePath(name);
-    REQUIRE(QFile::copy(mwtest::demoWorkbookPath(), path));
-    QFile::setPermissions(path, QFile::ReadOwner | QFile::WriteOwner);
-    return path;
-}
-
-QString shell(const QString& path, const QString& sql) {
-    QProcess process;
-    process.start(QStringLiteral("sqlite3"), {path, sql});
-    REQUIRE(process.waitForFinished(60'000));
-    return QString::fromUtf8(process.readAllStandardOutput()).trimmed();
-}
-
-QString dropAllTriggers(const QString& path) {
-    QString drops;
-    for (const QString& name :
-         shell(path, QStringLiteral("SELECT name FROM sqlite_master WHERE type = 'trigger'"))
-             .split(QLatin1Char('\n'), Qt::SkipEmptyParts)) {
-        drops += QStringLiteral("DROP TRIGGER \"%1\";").arg(name);
-    }
-    return drops;
-}
 
 // Removes the newest record from the chain and returns its session to "submitted"; returns
 // that session's id.
@@ -54,7 +35,7 @@ QString cutNewestRecord(const QString& path) {
     const QString newest =
         shell(path, QStringLiteral("SELECT session_id FROM record_chain ORDER BY id DESC LIMIT 1"));
     REQUIRE_FALSE(newest.isEmpty());
-    shell(path, dropAllTriggers(path) +
+    shell(path, dropTriggers(path) +
                     QStringLiteral("DELETE FROM record_chain WHERE session_id = %1; UPDATE "
                                    "calibration_sessions SET state = 'submitted', reviewer_id = "
                                    "NULL, approved_at = NULL WHERE id = %1;")
@@ -93,7 +74,7 @@ TEST_CASE("verify --against a backup: every record still there, exit 0", "[verif
             .arg(copy)));
 
     // A copy older by one record: the record approved since is fine.
-    shell(copy, dropAllTriggers(copy) +
+    shell(copy, dropTriggers(copy) +
                     QStringLiteral("DELETE FROM record_chain WHERE id = (SELECT max(id) FROM "
                                    "record_chain);"));
     const QByteArray edited = hashOf(copy);
@@ -144,9 +125,9 @@ TEST_CASE("verify --against names a record changed since the copy", "[verify][an
     REQUIRE(runMeterwright({QStringLiteral("backup"), path, copy}).exitCode == 0);
     const QString session =
         shell(path, QStringLiteral("SELECT session_id FROM record_chain WHERE id = 50"));
-    shell(path, dropAllTriggers(path) +
-                    QStringLiteral("UPDATE record_chain SET digest = printf('%064d', 7) "
-                                   "WHERE id = 50;"));
+    shell(path,
+          dropTriggers(path) + QStringLiteral("UPDATE record_chain SET digest = printf('%064d', 7) "
+                                              "WHERE id = 50;"));
     const CliResult compared = verifyAgainst(path, copy, true);
     CHECK(compared.exitCode == 1);
     const QJsonObject report = QJsonDocument::fromJson(compared.out).object();

@@ -4,6 +4,7 @@
 #include "storage/workbook.h"
 #include "support/cli_process.h"
 #include "support/demo_workbook.h"
+#include "support/sqlite_shell.h"
 
 #include <catch2/catch.hpp>
 
@@ -18,34 +19,11 @@
 using mwtest::CliResult;
 using mwtest::runMeterwright;
 
+using mwtest::copyOfDemo;
+using mwtest::dropTriggers;
+using mwtest::shell;
+
 namespace {
-
-QString copyOfDemo(const QTemporaryDir& dir, const QString& name = QStringLiteral("lab.mwb")) {
-    const QString path = dir.filePath(name);
-    REQUIRE(QFile::copy(mwtest::demoWorkbookPath(), path));
-    QFile::setPermissions(path, QFile::ReadOwner | QFile::WriteOwner);
-    return path;
-}
-
-// The sqlite3 shell, as someone editing the file behind the program's back would use it.
-QString shell(const QString& path, const QString& sql) {
-    QProcess process;
-    process.start(QStringLiteral("sqlite3"), {path, sql});
-    REQUIRE(process.waitForFinished(60'000));
-    return QString::fromUtf8(process.readAllStandardOutput()).trimmed();
-}
-
-QString dropTriggers(const QString& path, const QString& like = QStringLiteral("%")) {
-    QString drops;
-    for (const QString& name :
-         shell(path, QStringLiteral("SELECT name FROM sqlite_master WHERE type = 'trigger' AND "
-                                    "name LIKE '%1'")
-                         .arg(like))
-             .split(QLatin1Char('\n'), Qt::SkipEmptyParts)) {
-        drops += QStringLiteral("DROP TRIGGER \"%1\";").arg(name);
-    }
-    return drops;
-}
 
 // verify --json exits 1 and one of the problems it lists holds `words`; returns them all.
 QString requireUnsound(const QString& path, const QString& words) {
